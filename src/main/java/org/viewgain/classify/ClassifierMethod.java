@@ -1,0 +1,37 @@
+package org.viewgain.classify;
+
+import java.util.List;
+import org.viewgain.cohort.Rows;
+import org.viewgain.folds.FitContext;
+import org.viewgain.spec.ParamDef;
+import org.viewgain.spec.Params;
+
+/**
+ * A classifier family (random forest, SVM, a Weka class, ...). Implementations are stateless factories;
+ * {@link #fit} returns a trained model. All randomness comes from {@link FitContext#seed()}.
+ */
+public interface ClassifierMethod {
+
+    /** The method name used in specs, e.g. {@code random-forest}. */
+    String method();
+
+    /** The hyperparameters this method accepts. */
+    List<ParamDef> parameters();
+
+    /** Whether trained models give a continuous score per class (needed for AUC); false means labels only. */
+    boolean producesScores();
+
+    /**
+     * Trains a model.
+     *
+     * @param x       training rows (already scaled/selected by the pipeline)
+     * @param y       class index of each row, 0..classes-1
+     * @param classes number of classes
+     */
+    Model fit(FitContext ctx, Rows x, int[] y, int classes, Params params);
+
+    /** A trained model. */
+    interface Model {
+        Predictions predict(Rows x);
+    }
+}

@@ -1,0 +1,2 @@
+/** Command-line commands (picocli): parse, call the engine, print; no experiment logic here. */
+package org.viewgain.cli;

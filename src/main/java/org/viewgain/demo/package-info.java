@@ -1,0 +1,2 @@
+/** The invented demo cohort generator. */
+package org.viewgain.demo;

@@ -1,0 +1,41 @@
+package org.viewgain.imputation;
+
+import java.util.List;
+import org.viewgain.cohort.Rows;
+import org.viewgain.folds.FitContext;
+import org.viewgain.spec.ParamDef;
+import org.viewgain.spec.Params;
+
+/**
+ * A way of predicting the target view of a subject from its source view. Imputers never see group labels.
+ * Implementations are stateless factories; {@link #fit} returns the fitted state.
+ */
+public interface ViewImputer {
+
+    /** The method name used in specs, e.g. {@code ridge}. */
+    String method();
+
+    /** The hyperparameters this method accepts (for spec checking, grids and the README). */
+    List<ParamDef> parameters();
+
+    /**
+     * Fits on training subjects that have both views.
+     *
+     * @param ctx    where the fit happens and the seed to use
+     * @param source source-view features of the training subjects
+     * @param target target-view features of the same subjects, in the same order
+     * @param params one point of the grid, already checked against {@link #parameters()}
+     */
+    Fitted fit(FitContext ctx, Rows source, Rows target, Params params);
+
+    /** A fitted imputer. */
+    interface Fitted {
+        /**
+         * Predicts target-view features (one row per subject of {@code source}, as many columns as the target
+         * view had at fit time).
+         *
+         * @param ctx where the prediction happens (outside imputations are looked up by it)
+         */
+        double[][] impute(FitContext ctx, Rows source);
+    }
+}

@@ -1,0 +1,22 @@
+package org.viewgain.prep;
+
+import org.viewgain.cohort.Rows;
+import org.viewgain.folds.FitContext;
+
+/**
+ * A step fitted on training rows only and then applied to any rows (training or test): scaling, selection,
+ * covariate adjustment, harmonization. Labels are given to steps that need them (selection); others ignore them.
+ */
+public interface Transform {
+
+    /** A short name for provenance, e.g. {@code standardize}. */
+    String name();
+
+    /** Fits on training rows; {@code y} holds their class indices. */
+    Fitted fit(FitContext ctx, Rows train, int[] y);
+
+    /** A fitted step. */
+    interface Fitted {
+        Rows apply(Rows rows);
+    }
+}

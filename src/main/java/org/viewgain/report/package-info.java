@@ -1,0 +1,2 @@
+/** Writers of tidy CSV and JSON results, provenance and the HTML report. */
+package org.viewgain.report;
