@@ -3,7 +3,9 @@ package org.viewgain.classify;
 import java.util.List;
 import org.viewgain.cohort.Rows;
 import org.viewgain.folds.FitContext;
+import java.util.Map;
 import org.viewgain.spec.ParamDef;
+import org.viewgain.spec.ParamDefs;
 import org.viewgain.spec.Params;
 
 /**
@@ -17,6 +19,16 @@ public interface ClassifierMethod {
 
     /** The hyperparameters this method accepts. */
     List<ParamDef> parameters();
+
+    /**
+     * Checks one grid point given in a spec and fills in defaults. The default checks against {@link #parameters()};
+     * a method with open-ended options (a Weka class) overrides it.
+     *
+     * @throws IllegalArgumentException naming the bad key and what is allowed
+     */
+    default Params resolve(Map<String, Object> raw) {
+        return ParamDefs.resolve(parameters(), raw);
+    }
 
     /** Whether trained models give a continuous score per class (needed for AUC); false means labels only. */
     boolean producesScores();

@@ -3,7 +3,9 @@ package org.viewgain.imputation;
 import java.util.List;
 import org.viewgain.cohort.Rows;
 import org.viewgain.folds.FitContext;
+import java.util.Map;
 import org.viewgain.spec.ParamDef;
+import org.viewgain.spec.ParamDefs;
 import org.viewgain.spec.Params;
 
 /**
@@ -17,6 +19,16 @@ public interface ViewImputer {
 
     /** The hyperparameters this method accepts (for spec checking, grids and the README). */
     List<ParamDef> parameters();
+
+    /**
+     * Checks one grid point given in a spec and fills in defaults. The default checks against {@link #parameters()};
+     * a method with open-ended options (a Weka class) overrides it.
+     *
+     * @throws IllegalArgumentException naming the bad key and what is allowed
+     */
+    default Params resolve(Map<String, Object> raw) {
+        return ParamDefs.resolve(parameters(), raw);
+    }
 
     /**
      * Fits on training subjects that have both views.
