@@ -1,0 +1,120 @@
+package org.viewgain.engine;
+
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import org.viewgain.stats.ClassificationMetrics;
+
+/**
+ * Metrics from out-of-fold predictions: per pipeline and repeat on the pooled predictions of that repeat, then the
+ * mean and standard deviation over repeats; and per outer fold (for paired fold-wise tests).
+ */
+public final class Evaluation {
+    private Evaluation() {
+    }
+
+    /** A metric of one pipeline: mean over repeats, its spread, and n subjects per repeat. */
+    public record MetricRow(Pipeline pipeline, String metric, double estimate, double sdOverRepeats, int repeats,
+                            int n) {
+    }
+
+    /** A metric of one pipeline in one outer fold (or one whole repeat when fold is -1). */
+    public record FoldMetricRow(Pipeline pipeline, int repeat, int fold, String metric, double value, int n) {
+    }
+
+    /** Metrics per pipeline, averaged over repeats, in pipeline order then metric order. */
+    public static List<MetricRow> metrics(RunResults res) {
+        List<MetricRow> out = new ArrayList<>();
+        Experiment ex = res.experiment();
+        for (Pipeline p : ex.pipelines()) {
+            List<Map<String, Double>> perRepeat = new ArrayList<>();
+            int n = 0;
+            for (int r = 0; r < res.plan().repeats(); r++) {
+                List<RunResults.Prediction> ps = select(res, p, r, -1);
+                n = ps.size();
+                perRepeat.add(compute(ex, ps));
+            }
+            for (String m : ClassificationMetrics.NAMES) {
+                double[] v = perRepeat.stream().mapToDouble(x -> x.get(m)).toArray();
+                out.add(new MetricRow(p, m, mean(v), sd(v), v.length, n));
+            }
+        }
+        return out;
+    }
+
+    /** Metrics per pipeline, repeat and outer fold. */
+    public static List<FoldMetricRow> foldMetrics(RunResults res) {
+        List<FoldMetricRow> out = new ArrayList<>();
+        Experiment ex = res.experiment();
+        for (Pipeline p : ex.pipelines()) {
+            for (int r = 0; r < res.plan().repeats(); r++) {
+                for (int f = 0; f < res.plan().folds(r); f++) {
+                    List<RunResults.Prediction> ps = select(res, p, r, f);
+                    Map<String, Double> m = compute(ex, ps);
+                    for (String name : ClassificationMetrics.NAMES) {
+                        out.add(new FoldMetricRow(p, r, f, name, m.get(name), ps.size()));
+                    }
+                }
+            }
+        }
+        return out;
+    }
+
+    static List<RunResults.Prediction> select(RunResults res, Pipeline p, int repeat, int fold) {
+        List<RunResults.Prediction> out = new ArrayList<>();
+        for (RunResults.Prediction pr : res.predictions()) {
+            if (pr.pipeline().equals(p) && pr.repeat() == repeat && (fold < 0 || pr.fold() == fold)) {
+                out.add(pr);
+            }
+        }
+        return out;
+    }
+
+    static Map<String, Double> compute(Experiment ex, List<RunResults.Prediction> ps) {
+        int n = ps.size();
+        int classes = ex.spec().cohort().groups().size();
+        int[] truth = new int[n];
+        int[] pred = new int[n];
+        boolean scores = n > 0;
+        for (int i = 0; i < n; i++) {
+            truth[i] = ps.get(i).truth();
+            pred[i] = ps.get(i).predicted();
+            scores &= ps.get(i).scores() != null;
+        }
+        if (n == 0) {
+            Map<String, Double> empty = new LinkedHashMap<>();
+            ClassificationMetrics.NAMES.forEach(m -> empty.put(m, Double.NaN));
+            return empty;
+        }
+        if (classes == 2) {
+            double[] s = null;
+            if (scores) {
+                s = ps.stream().mapToDouble(RunResults.Prediction::score).toArray();
+            }
+            return ClassificationMetrics.binary(truth, pred, s, ex.spec().cohort().positiveIndex());
+        }
+        double[][] all = scores ? ps.stream().map(RunResults.Prediction::scores).toArray(double[][]::new) : null;
+        return ClassificationMetrics.multiclass(truth, pred, all, classes);
+    }
+
+    static double mean(double[] v) {
+        double s = 0;
+        for (double x : v) {
+            s += x;
+        }
+        return s / v.length;
+    }
+
+    static double sd(double[] v) {
+        if (v.length < 2) {
+            return Double.NaN;
+        }
+        double m = mean(v);
+        double s = 0;
+        for (double x : v) {
+            s += (x - m) * (x - m);
+        }
+        return Math.sqrt(s / (v.length - 1));
+    }
+}

@@ -1,0 +1,71 @@
+package org.viewgain.engine;
+
+import java.util.ArrayList;
+import java.util.List;
+import org.viewgain.folds.FoldPlan;
+import org.viewgain.spec.ExperimentSpec;
+import org.viewgain.spec.FeatureSet;
+
+/**
+ * Everything a run needs, checked and ready: the spec, the loaded data, the fold plan, the resolved methods and the
+ * list of pipelines in output order.
+ */
+public record Experiment(ExperimentSpec spec, StudyData data, FoldPlan plan, List<Resolved.Imputer> imputers,
+                         List<Resolved.Classifier> classifiers, List<Pipeline> pipelines) {
+    public Experiment {
+        imputers = List.copyOf(imputers);
+        classifiers = List.copyOf(classifiers);
+        pipelines = List.copyOf(pipelines);
+    }
+
+    /** Pipelines in a fixed order: feature sets as listed, then imputers, then classifiers as listed. */
+    static List<Pipeline> pipelines(List<FeatureSet> sets, List<Resolved.Imputer> imputers,
+                                    List<Resolved.Classifier> classifiers) {
+        List<Pipeline> out = new ArrayList<>();
+        for (FeatureSet fs : sets) {
+            List<String> imps = fs.needsImputer() ? imputers.stream().map(Resolved.Imputer::name).toList()
+                    : List.of(Pipeline.NO_IMPUTER);
+            for (String imp : imps) {
+                for (Resolved.Classifier c : classifiers) {
+                    out.add(new Pipeline(imp, fs, c.name()));
+                }
+            }
+        }
+        return out;
+    }
+
+    public Resolved.Imputer imputer(String name) {
+        return imputers.stream().filter(i -> i.name().equals(name)).findFirst().orElseThrow();
+    }
+
+    public Resolved.Classifier classifier(String name) {
+        return classifiers.stream().filter(c -> c.name().equals(name)).findFirst().orElseThrow();
+    }
+
+    /** Positions of the subjects a feature set can use (all, or those with an observed target). */
+    public boolean inPopulation(FeatureSet fs, int i) {
+        return !fs.needsObservedTarget() || data.hasTarget(i);
+    }
+
+    /** How many model fits (imputers and classifiers, tuning included) the run will do. */
+    public long modelFits() {
+        int k = spec.validation().innerFolds();
+        boolean crossFit = spec.imputedForTraining() == org.viewgain.spec.Specs.TrainingImputation.CROSS_FITTED;
+        boolean anyImputed = pipelines.stream().anyMatch(p -> p.featureSet().needsImputer());
+        long perFold = 0;
+        if (anyImputed) {
+            for (Resolved.Imputer i : imputers) {
+                perFold += (crossFit || i.grid().size() > 1 ? (long) i.grid().size() * k : 0) + 1;
+            }
+        }
+        for (Pipeline p : pipelines) {
+            int g = classifier(p.classifier()).grid().size();
+            perFold += (g > 1 ? (long) g * k : 0) + 1;
+        }
+        long folds = 0;
+        for (int r = 0; r < plan.repeats(); r++) {
+            folds += plan.folds(r);
+        }
+        return perFold * folds;
+    }
+}

@@ -1,0 +1,142 @@
+package org.viewgain.engine;
+
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+import org.viewgain.cohort.Subject;
+import org.viewgain.folds.FoldPlan;
+import org.viewgain.spec.BadInputException;
+import org.viewgain.spec.ExperimentSpec;
+import org.viewgain.spec.FeatureSet;
+import org.viewgain.spec.Problems;
+import org.viewgain.spec.Specs;
+
+/**
+ * Turns a spec into a ready {@link Experiment}: resolves methods, loads data, builds the fold plan and checks that
+ * the plan is possible on this cohort (enough subjects of every group in every training set, and so on).
+ */
+public final class Setup {
+    private Setup() {
+    }
+
+    /** Checks and prepares; every user mistake becomes a {@link BadInputException}. */
+    public static Experiment prepare(ExperimentSpec spec) {
+        Problems problems = new Problems(spec.where());
+        List<Resolved.Imputer> imputers = MethodResolver.imputers(spec, problems);
+        List<Resolved.Classifier> classifiers = MethodResolver.classifiers(spec, problems);
+        problems.throwIfAny();
+        StudyData data = DataLoader.load(spec);
+        checkCohort(spec, data, problems);
+        problems.throwIfAny();
+        FoldPlan plan = plan(spec, data);
+        List<Pipeline> pipelines = Experiment.pipelines(spec.featureSets(), imputers, classifiers);
+        Experiment ex = new Experiment(spec, data, plan, imputers, classifiers, pipelines);
+        checkPlan(ex, problems);
+        problems.throwIfAny();
+        return ex;
+    }
+
+    static FoldPlan plan(ExperimentSpec spec, StudyData data) {
+        Specs.Validation v = spec.validation();
+        return switch (v.scheme()) {
+            case LEAVE_ONE_OUT -> FoldPlan.leaveOneOut(data.n());
+            case LEAVE_SITE_OUT -> FoldPlan.leaveSiteOut(data.subjects().stream().map(Subject::site)
+                    .toArray(String[]::new));
+            default -> FoldPlan.stratifiedKFold(outerStrata(spec, data), v.folds(), v.repeats(), spec.seed());
+        };
+    }
+
+    /** Group, or group x site when a site column is given. */
+    static int[] outerStrata(ExperimentSpec spec, StudyData data) {
+        Map<String, Integer> codes = new HashMap<>();
+        int[] s = new int[data.n()];
+        for (int i = 0; i < data.n(); i++) {
+            Subject sub = data.subjects().get(i);
+            String key = data.y()[i] + "|" + (spec.cohort().site() == null ? "" : sub.site());
+            s[i] = codes.computeIfAbsent(key, k -> codes.size());
+        }
+        return s;
+    }
+
+    private static void checkCohort(ExperimentSpec spec, StudyData data, Problems problems) {
+        List<String> groups = spec.cohort().groups();
+        int[] count = new int[groups.size()];
+        int[] withTarget = new int[groups.size()];
+        for (int i = 0; i < data.n(); i++) {
+            count[data.y()[i]]++;
+            if (data.hasTarget(i)) {
+                withTarget[data.y()[i]]++;
+            }
+        }
+        for (int g = 0; g < groups.size(); g++) {
+            if (count[g] == 0) {
+                problems.add("cohort.groups", "group '" + groups.get(g) + "' has no subjects in "
+                        + spec.cohort().subjects().getFileName());
+            }
+        }
+        Specs.Validation v = spec.validation();
+        if (v.scheme() == Specs.Scheme.STRATIFIED_K_FOLD) {
+            for (int g = 0; g < groups.size(); g++) {
+                if (count[g] > 0 && count[g] < v.folds()) {
+                    problems.add("validation.outer.folds", v.folds() + " folds but group '" + groups.get(g)
+                            + "' has only " + count[g] + " subjects; use at most " + count[g] + " folds");
+                }
+            }
+            for (int k = 0; k < spec.featureSets().size(); k++) {
+                FeatureSet fs = spec.featureSets().get(k);
+                for (int g = 0; g < groups.size() && fs.needsObservedTarget(); g++) {
+                    if (withTarget[g] < v.folds()) {
+                        problems.add("feature-sets[" + k + "]", "'" + fs.label() + "' uses subjects with an observed"
+                                + " target, but group '" + groups.get(g) + "' has only " + withTarget[g]
+                                + " of them, fewer than the " + v.folds() + " outer folds");
+                    }
+                }
+            }
+        }
+        if (spec.cohort().site() != null) {
+            for (Subject s : data.subjects()) {
+                if (s.site() == null || s.site().isBlank()) {
+                    throw new BadInputException(spec.cohort().subjects() + ":" + s.line() + ": subject '" + s.id()
+                            + "' has no value in the site column '" + spec.cohort().site() + "'");
+                }
+            }
+        }
+    }
+
+    private static void checkPlan(Experiment ex, Problems problems) {
+        int classes = ex.spec().cohort().groups().size();
+        int inner = ex.spec().validation().innerFolds();
+        boolean anyImputer = ex.pipelines().stream().anyMatch(p -> p.featureSet().needsImputer());
+        for (int r = 0; r < ex.plan().repeats(); r++) {
+            for (int f = 0; f < ex.plan().folds(r); f++) {
+                int[] train = ex.plan().train(r, f);
+                for (FeatureSet fs : ex.spec().featureSets()) {
+                    int[] perClass = new int[classes];
+                    for (int i : train) {
+                        if (ex.inPopulation(fs, i)) {
+                            perClass[ex.data().y()[i]]++;
+                        }
+                    }
+                    for (int g = 0; g < classes; g++) {
+                        if (perClass[g] < inner) {
+                            problems.add("validation.inner.folds", "in repeat " + (r + 1) + ", outer fold " + (f + 1)
+                                    + ", the training subjects of feature set '" + fs.label() + "' include only "
+                                    + perClass[g] + " of group '" + ex.spec().cohort().groups().get(g) + "', fewer than "
+                                    + inner + " inner folds; use fewer inner or outer folds");
+                            return;
+                        }
+                    }
+                }
+                if (anyImputer) {
+                    long withTarget = java.util.Arrays.stream(train).filter(ex.data()::hasTarget).count();
+                    if (withTarget < 2L * inner) {
+                        problems.add("imputers", "in repeat " + (r + 1) + ", outer fold " + (f + 1) + " only "
+                                + withTarget + " training subjects have an observed target; imputers need at least "
+                                + (2 * inner) + " (twice the inner folds)");
+                        return;
+                    }
+                }
+            }
+        }
+    }
+}

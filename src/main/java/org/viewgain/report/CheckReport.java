@@ -1,0 +1,85 @@
+package org.viewgain.report;
+
+import java.util.List;
+import java.util.Map;
+import java.util.TreeMap;
+import org.viewgain.cohort.Subject;
+import org.viewgain.engine.Experiment;
+import org.viewgain.engine.Pipeline;
+import org.viewgain.folds.FoldPlan;
+
+/** The plain-text cohort and plan summary printed by {@code viewgain check} and at the start of a run. */
+public final class CheckReport {
+    private CheckReport() {
+    }
+
+    public static String text(Experiment ex) {
+        StringBuilder b = new StringBuilder();
+        List<String> groups = ex.spec().cohort().groups();
+        var d = ex.data();
+        b.append("experiment ").append(ex.spec().experiment()).append(" (seed ").append(ex.spec().seed())
+                .append(")\n\n");
+        b.append(String.format("%-14s %8s %14s %14s%n", "group", "subjects", "target seen", "target missing"));
+        for (int g = 0; g < groups.size(); g++) {
+            int n = 0;
+            int seen = 0;
+            for (int i = 0; i < d.n(); i++) {
+                if (d.y()[i] == g) {
+                    n++;
+                    seen += d.hasTarget(i) ? 1 : 0;
+                }
+            }
+            b.append(String.format("%-14s %8d %14s %14s%n", groups.get(g), n, d.target() == null ? "-" : seen,
+                    d.target() == null ? "-" : n - seen));
+        }
+        b.append(String.format("%-14s %8d%n", "all", d.n()));
+        if (ex.spec().cohort().site() != null) {
+            Map<String, int[]> bySite = new TreeMap<>();
+            for (int i = 0; i < d.n(); i++) {
+                Subject s = d.subjects().get(i);
+                bySite.computeIfAbsent(s.site(), k -> new int[groups.size()])[d.y()[i]]++;
+            }
+            b.append("\nsubjects per site and group\n");
+            bySite.forEach((site, counts) -> {
+                b.append(String.format("  %-12s", site));
+                for (int g = 0; g < groups.size(); g++) {
+                    b.append(String.format(" %s=%d", groups.get(g), counts[g]));
+                }
+                b.append('\n');
+            });
+        }
+        b.append("\nviews\n");
+        b.append("  source: ").append(describe(d.source())).append('\n');
+        if (d.target() != null) {
+            b.append("  target: ").append(describe(d.target())).append('\n');
+        }
+        b.append("  features per subject: source ").append(d.sourceNames().size());
+        if (d.target() != null) {
+            b.append(", target ").append(d.targetNames().size());
+        }
+        b.append(" (extract: ").append(String.join(", ", ex.spec().features().extract())).append(")\n");
+        FoldPlan plan = ex.plan();
+        b.append("\nfolds: ").append(plan.scheme()).append(", ").append(plan.repeats()).append(" repeat(s); inner ")
+                .append(ex.spec().validation().innerFolds()).append(" folds, tuned by ")
+                .append(ex.spec().validation().tuneBy()).append('\n');
+        for (int r = 0; r < Math.min(plan.repeats(), 1); r++) {
+            b.append("  test fold sizes (repeat 1):");
+            for (int f = 0; f < plan.folds(r); f++) {
+                b.append(' ').append(plan.test(r, f).length);
+            }
+            b.append('\n');
+        }
+        b.append("\npipelines: ").append(ex.pipelines().size()).append('\n');
+        for (Pipeline p : ex.pipelines()) {
+            b.append("  ").append(p.label()).append('\n');
+        }
+        b.append("model fits in this run: ").append(ex.modelFits()).append('\n');
+        return b.toString();
+    }
+
+    private static String describe(org.viewgain.cohort.View v) {
+        return (v.isGraph() ? "graph of " + v.regions() + " regions (" + v.baseNames().size() + " edges)"
+                : "table of " + v.baseNames().size() + " columns") + ", present for " + v.subjects().size()
+                + " subjects";
+    }
+}

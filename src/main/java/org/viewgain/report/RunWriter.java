@@ -1,0 +1,25 @@
+package org.viewgain.report;
+
+import java.io.IOException;
+import java.util.List;
+import org.viewgain.engine.Evaluation;
+import org.viewgain.engine.RunResults;
+
+/** Writes every table of a finished run into its folder, then marks run.json complete. */
+public final class RunWriter {
+    private RunWriter() {
+    }
+
+    /** Writes the tables; run.json is written last with status complete. */
+    public static void write(RunFolder folder, RunResults res, Provenance prov, List<Evaluation.MetricRow> metrics)
+            throws IOException {
+        folder.write("folds.csv", ResultTables.folds(res));
+        folder.write("predictions.csv", ResultTables.predictions(res));
+        folder.write("metrics.csv", ResultTables.metrics(metrics));
+        folder.write("fold_metrics.csv", ResultTables.foldMetrics(Evaluation.foldMetrics(res)));
+        folder.write("hyperparameters.csv", ResultTables.hyperparameters(res));
+        folder.write("imputation.csv", ResultTables.imputation(res));
+        prov.put("status", "complete");
+        folder.writeText("run.json", prov.toJson());
+    }
+}

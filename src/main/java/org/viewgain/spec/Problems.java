@@ -1,0 +1,34 @@
+package org.viewgain.spec;
+
+import java.util.ArrayList;
+import java.util.List;
+
+/** Collects every problem of a spec so that they are reported together, each naming its key and line. */
+public final class Problems {
+    private final SourceMap where;
+    private final List<String> messages = new ArrayList<>();
+
+    public Problems(SourceMap where) {
+        this.where = where;
+    }
+
+    public void add(String path, String message) {
+        messages.add(where.at(path, message));
+    }
+
+    public boolean isEmpty() {
+        return messages.isEmpty();
+    }
+
+    public List<String> messages() {
+        return List.copyOf(messages);
+    }
+
+    /** Throws one {@link BadInputException} listing every problem, one per line, when there are any. */
+    public void throwIfAny() {
+        if (!messages.isEmpty()) {
+            String head = messages.size() == 1 ? "" : messages.size() + " problems in the spec:" + System.lineSeparator();
+            throw new BadInputException(head + String.join(System.lineSeparator(), messages));
+        }
+    }
+}

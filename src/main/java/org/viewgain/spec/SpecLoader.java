@@ -1,0 +1,287 @@
+package org.viewgain.spec;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.HashSet;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+
+/**
+ * Reads a YAML spec into an {@link ExperimentSpec}. Every problem found is collected and reported together in one
+ * {@link BadInputException}, each naming the key path, its line and what is allowed. Method names and their
+ * parameters are checked later against the method registries (they live above this package).
+ */
+public final class SpecLoader {
+    static final List<String> TUNE_BY = List.of("balanced-accuracy", "auc", "accuracy");
+    static final List<String> EXTRACTORS = List.of("edges", "strength");
+
+    private SpecLoader() {
+    }
+
+    /** Loads and checks a spec file. */
+    public static ExperimentSpec load(Path file) {
+        String text;
+        try {
+            text = Files.readString(file, StandardCharsets.UTF_8);
+        } catch (IOException e) {
+            throw new BadInputException(file + ": cannot read the spec file (" + e.getClass().getSimpleName() + ": "
+                    + e.getMessage() + ")");
+        }
+        return parse(text, file);
+    }
+
+    /** Parses spec text; {@code file} names it in messages and anchors relative paths. */
+    public static ExperimentSpec parse(String text, Path file) {
+        YamlTree.Parsed parsed = YamlTree.parse(text, file.toString());
+        JsonNode root = parsed.root();
+        Problems problems = new Problems(parsed.where());
+        if (root == null || !root.isObject()) {
+            throw new BadInputException(file + ": the spec must be a YAML mapping of keys (experiment, seed, cohort, "
+                    + "views, ...), found " + Section.describe(root));
+        }
+        Path base = file.toAbsolutePath().getParent();
+        Section top = new Section(root, "", problems);
+        top.allowOnly(Set.of("experiment", "seed", "cohort", "views", "features", "imputers", "imputed-for-training",
+                "feature-sets", "classifiers", "validation"));
+
+        String experiment = top.text("experiment", "experiment", true);
+        if (experiment != null && !experiment.matches("[A-Za-z0-9][A-Za-z0-9._-]{0,79}")) {
+            problems.add("experiment", "'" + experiment + "' cannot name a folder; use letters, digits, '.', '_' or '-'"
+                    + " (at most 80)");
+        }
+        long seed = top.longValue("seed", 1L);
+
+        Specs.Cohort cohort = cohort(top.section("cohort", true), base);
+        Section views = top.section("views", true);
+        views.allowOnly(Set.of("source", "target"));
+        Specs.View source = view(views, "source", base, true);
+        Specs.View target = view(views, "target", base, false);
+        Specs.Features features = features(top.section("features", false), source, target);
+        List<Specs.Method> imputers = methods(top, "imputers", base, false);
+        Specs.TrainingImputation training = top.has("imputed-for-training")
+                ? trainingImputation(top) : Specs.TrainingImputation.CROSS_FITTED;
+        List<FeatureSet> sets = featureSets(top, problems);
+        List<Specs.Method> classifiers = methods(top, "classifiers", base, true);
+        Specs.Validation validation = validation(top.section("validation", false), cohort);
+
+        for (int i = 0; i < sets.size(); i++) {
+            FeatureSet fs = sets.get(i);
+            String key = "feature-sets[" + i + "]";
+            if ((fs.needsImputer() || fs.needsObservedTarget()) && target == null) {
+                problems.add(key, "'" + fs.label() + "' needs a target view, but views.target is not given");
+            }
+            if (fs.needsImputer() && imputers.isEmpty()) {
+                problems.add(key, "'" + fs.label() + "' needs at least one entry under imputers");
+            }
+        }
+        if (!imputers.isEmpty() && target == null) {
+            problems.add("imputers", "imputers need a target view to learn from, but views.target is not given");
+        }
+        problems.throwIfAny();
+        return new ExperimentSpec(experiment, seed, file, text, cohort, source, target, features, imputers, training,
+                sets, classifiers, validation, parsed.where());
+    }
+
+    private static Specs.Cohort cohort(Section s, Path base) {
+        s.allowOnly(Set.of("subjects", "id", "group", "groups", "positive", "site", "covariates"));
+        String subjects = s.text("subjects", null, s.node != null);
+        String id = s.text("id", "subject", false);
+        String group = s.text("group", "group", false);
+        List<String> groups = s.textList("groups", List.of());
+        if (s.node != null && groups.size() < 2) {
+            s.problems.add(s.key("groups"), "list the group labels, at least two (e.g. [control, patient])");
+        }
+        if (new HashSet<>(groups).size() != groups.size()) {
+            s.problems.add(s.key("groups"), "a group label is listed twice");
+        }
+        String positive = s.text("positive", null, false);
+        if (positive != null && !groups.contains(positive)) {
+            s.problems.add(s.key("positive"), "'" + positive + "' is not one of groups " + groups);
+        }
+        if (positive == null && groups.size() == 2) {
+            s.problems.add(s.key("positive"), "missing; with two groups, say which is positive (one of " + groups + ")");
+        }
+        String site = s.text("site", null, false);
+        List<String> covariates = s.textList("covariates", List.of());
+        return new Specs.Cohort(subjects == null ? null : base.resolve(subjects).normalize(), id, group, groups,
+                positive, site, covariates);
+    }
+
+    private static Specs.View view(Section views, String name, Path base, boolean required) {
+        if (!views.has(name)) {
+            if (required && views.node != null) {
+                views.problems.add(views.key(name), "missing; the source view is required");
+            }
+            return null;
+        }
+        Section s = views.section(name, true);
+        if (s.node == null) {
+            return null;
+        }
+        s.allowOnly(Set.of("matrices", "table", "id", "missing", "tolerance"));
+        boolean matrices = s.has("matrices");
+        boolean table = s.has("table");
+        if (matrices == table) {
+            s.problems.add(s.path, "give exactly one of 'matrices' (a path pattern with {subject}) or 'table' (a CSV)");
+            return null;
+        }
+        String where = s.text(matrices ? "matrices" : "table", null, true);
+        if (where == null) {
+            return null;
+        }
+        if (matrices && !where.contains("{subject}")) {
+            s.problems.add(s.key("matrices"), "the path pattern must contain {subject}, e.g. views/area/{subject}.csv");
+        }
+        if (matrices && s.has("id")) {
+            s.problems.add(s.key("id"), "only a 'table' view has an id column");
+        }
+        String missing = s.choice("missing", List.of("allowed", "not-allowed"), "not-allowed");
+        double tolerance = s.number("tolerance", 1e-6, 0, Double.MAX_VALUE);
+        return new Specs.View(name, matrices ? Specs.Layout.MATRICES : Specs.Layout.TABLE,
+                base.resolve(where).normalize(), s.text("id", null, false), "allowed".equals(missing), tolerance);
+    }
+
+    private static Specs.Features features(Section s, Specs.View source, Specs.View target) {
+        s.allowOnly(Set.of("extract", "scale"));
+        List<String> extract = s.textList("extract", List.of("edges"));
+        if (extract.isEmpty()) {
+            s.problems.add(s.key("extract"), "give at least one extractor: " + String.join(", ", EXTRACTORS));
+        }
+        for (int i = 0; i < extract.size(); i++) {
+            String e = extract.get(i);
+            if (!EXTRACTORS.contains(e)) {
+                s.problems.add(s.key("extract") + "[" + i + "]", "'" + e + "' is not an extractor; expected one of "
+                        + String.join(", ", EXTRACTORS));
+            } else if (e.equals("strength")) {
+                for (Specs.View v : new Specs.View[] {source, target}) {
+                    if (v != null && v.layout() == Specs.Layout.TABLE) {
+                        s.problems.add(s.key("extract") + "[" + i + "]", "'strength' needs graph views, but views."
+                                + v.name() + " is a table; use 'edges' (the table's columns as they are)");
+                    }
+                }
+            }
+        }
+        if (new HashSet<>(extract).size() != extract.size()) {
+            s.problems.add(s.key("extract"), "an extractor is listed twice");
+        }
+        String scale = s.choice("scale", List.of("standardize", "none"), "standardize");
+        return new Specs.Features(extract, scale);
+    }
+
+    private static Specs.TrainingImputation trainingImputation(Section top) {
+        String v = top.choice("imputed-for-training", List.of("cross-fitted", "observed"), "cross-fitted");
+        return "observed".equals(v) ? Specs.TrainingImputation.OBSERVED : Specs.TrainingImputation.CROSS_FITTED;
+    }
+
+    private static List<FeatureSet> featureSets(Section top, Problems problems) {
+        List<String> raw = top.textList("feature-sets", List.of("source", "source+imputed"));
+        List<FeatureSet> out = new ArrayList<>();
+        for (int i = 0; i < raw.size(); i++) {
+            FeatureSet fs = FeatureSet.byLabel(raw.get(i));
+            if (fs == null) {
+                problems.add("feature-sets[" + i + "]", "'" + raw.get(i) + "' is not a feature set; expected one of "
+                        + String.join(", ", FeatureSet.labels()));
+            } else if (out.contains(fs)) {
+                problems.add("feature-sets[" + i + "]", "'" + raw.get(i) + "' is listed twice");
+            } else {
+                out.add(fs);
+            }
+        }
+        if (raw.isEmpty()) {
+            problems.add("feature-sets", "give at least one feature set: " + String.join(", ", FeatureSet.labels()));
+        }
+        return out;
+    }
+
+    private static List<Specs.Method> methods(Section top, String key, Path base, boolean required) {
+        List<Specs.Method> out = new ArrayList<>();
+        if (!top.has(key)) {
+            if (required) {
+                top.problems.add(key, "missing; list at least one entry with a method");
+            }
+            return out;
+        }
+        JsonNode list = top.node.get(key);
+        if (!list.isArray()) {
+            top.problems.add(key, "expected a list of entries (- { name: ..., method: ... }), found " + Section.describe(list));
+            return out;
+        }
+        if (list.isEmpty() && required) {
+            top.problems.add(key, "an empty list; give at least one entry");
+        }
+        Set<String> names = new HashSet<>();
+        boolean classifier = key.equals("classifiers");
+        for (int i = 0; i < list.size(); i++) {
+            String path = key + "[" + i + "]";
+            JsonNode n = list.get(i);
+            if (!n.isObject()) {
+                top.problems.add(path, "expected a mapping with at least 'method', found " + Section.describe(n));
+                continue;
+            }
+            Section s = new Section(n, path, top.problems);
+            s.allowOnly(classifier ? Set.of("name", "method", "fixed", "grid", "class", "options")
+                    : Set.of("name", "method", "fixed", "grid"));
+            String method = s.text("method", null, true);
+            String name = s.text("name", method, false);
+            if (name != null && !name.matches("[A-Za-z0-9][A-Za-z0-9._-]*")) {
+                top.problems.add(s.key("name"), "'" + name + "': use letters, digits, '.', '_' or '-'");
+            }
+            if (name != null && !names.add(name)) {
+                top.problems.add(s.key("name"), "'" + name + "' is used by two entries; names must be unique");
+            }
+            if (name != null && name.equals("none")) {
+                top.problems.add(s.key("name"), "'none' is reserved (it marks pipelines without an imputer)");
+            }
+            Map<String, Object> fixed = s.scalarMap("fixed");
+            Map<String, List<Object>> grid = s.gridMap("grid");
+            for (String k : fixed.keySet()) {
+                if (grid.containsKey(k)) {
+                    top.problems.add(s.key("grid") + "." + k, "given both as fixed and in the grid; choose one");
+                }
+            }
+            String wekaClass = classifier ? s.text("class", null, false) : null;
+            String wekaOptions = classifier ? s.text("options", null, false) : null;
+            if (method != null && name != null) {
+                out.add(new Specs.Method(name, method, fixed, grid, wekaClass, wekaOptions, path));
+            }
+        }
+        return out;
+    }
+
+    private static Specs.Validation validation(Section s, Specs.Cohort cohort) {
+        s.allowOnly(Set.of("outer", "inner", "tune-by"));
+        Section outer = s.section("outer", false);
+        outer.allowOnly(Set.of("scheme", "folds", "repeats"));
+        String schemeText = outer.choice("scheme", List.of("stratified-k-fold", "leave-one-out", "leave-site-out"),
+                "stratified-k-fold");
+        Specs.Scheme scheme = switch (schemeText) {
+            case "leave-one-out" -> Specs.Scheme.LEAVE_ONE_OUT;
+            case "leave-site-out" -> Specs.Scheme.LEAVE_SITE_OUT;
+            default -> Specs.Scheme.STRATIFIED_K_FOLD;
+        };
+        int folds = outer.integer("folds", 5, 2, 1000);
+        int repeats = outer.integer("repeats", 1, 1, 1000);
+        if (scheme != Specs.Scheme.STRATIFIED_K_FOLD) {
+            if (outer.has("folds")) {
+                outer.problems.add(outer.key("folds"), "only stratified-k-fold takes a number of folds ("
+                        + scheme.label() + " makes its own)");
+            }
+            if (repeats != 1) {
+                outer.problems.add(outer.key("repeats"), scheme.label() + " has one fixed partition; repeats must be 1");
+            }
+        }
+        if (scheme == Specs.Scheme.LEAVE_SITE_OUT && cohort.site() == null) {
+            outer.problems.add(outer.key("scheme"), "leave-site-out needs cohort.site (the site column)");
+        }
+        Section inner = s.section("inner", false);
+        inner.allowOnly(Set.of("folds"));
+        int innerFolds = inner.integer("folds", 3, 2, 100);
+        String tuneBy = s.choice("tune-by", TUNE_BY, "balanced-accuracy");
+        return new Specs.Validation(scheme, folds, repeats, innerFolds, tuneBy);
+    }
+}

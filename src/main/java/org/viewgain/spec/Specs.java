@@ -1,0 +1,104 @@
+package org.viewgain.spec;
+
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Map;
+
+/** The records a spec file is read into. Collections are copied; records are immutable. */
+public final class Specs {
+    private Specs() {
+    }
+
+    /**
+     * The subjects table and how to read it.
+     *
+     * @param groups   allowed group labels; their order gives class indices
+     * @param positive the group treated as positive in two-group metrics (null for three or more groups)
+     * @param site     site column or null
+     */
+    public record Cohort(Path subjects, String id, String group, List<String> groups, String positive, String site,
+                         List<String> covariates) {
+        public Cohort {
+            groups = List.copyOf(groups);
+            covariates = List.copyOf(covariates);
+        }
+
+        public int positiveIndex() {
+            return positive == null ? -1 : groups.indexOf(positive);
+        }
+    }
+
+    /** Layouts a view can be given in. */
+    public enum Layout { MATRICES, TABLE }
+
+    /**
+     * Where a view is and how to read it.
+     *
+     * @param location  a path pattern with {@code {subject}} for matrices, or the CSV file for a table
+     * @param idColumn  the subject column of a table (null: the first column)
+     * @param tolerance largest allowed |m[i][j] - m[j][i]| of a matrix
+     */
+    public record View(String name, Layout layout, Path location, String idColumn, boolean missingAllowed,
+                       double tolerance) {
+    }
+
+    /** How views become features. */
+    public record Features(List<String> extract, String scale) {
+        public Features {
+            extract = List.copyOf(extract);
+        }
+    }
+
+    /**
+     * An imputer or classifier entry: a user-chosen name, the method, fixed values and a grid.
+     *
+     * @param wekaClass   class name for the {@code weka} method, else null
+     * @param wekaOptions base option string for the {@code weka} method, else null
+     * @param path        key path of the entry (for messages)
+     */
+    public record Method(String name, String method, Map<String, Object> fixed, Map<String, List<Object>> grid,
+                         String wekaClass, String wekaOptions, String path) {
+        public Method {
+            // insertion order matters: it fixes the order of grid points (and so the tie-breaking of tuning)
+            fixed = java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(fixed));
+            grid = java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(grid));
+        }
+    }
+
+    /** Outer resampling schemes. */
+    public enum Scheme {
+        STRATIFIED_K_FOLD("stratified-k-fold"), LEAVE_ONE_OUT("leave-one-out"), LEAVE_SITE_OUT("leave-site-out");
+
+        private final String label;
+
+        Scheme(String label) {
+            this.label = label;
+        }
+
+        public String label() {
+            return label;
+        }
+    }
+
+    /** Nested cross-validation settings. */
+    public record Validation(Scheme scheme, int folds, int repeats, int innerFolds, String tuneBy) {
+    }
+
+    /** How training subjects get the imputed target features. */
+    public enum TrainingImputation {
+        /** From imputers fitted on the other training subjects (K-fold cross-fitting). */
+        CROSS_FITTED("cross-fitted"),
+        /** The observed target where there is one, else the fold's imputer output. */
+        OBSERVED("observed");
+
+        private final String label;
+
+        TrainingImputation(String label) {
+            this.label = label;
+        }
+
+        public String label() {
+            return label;
+        }
+    }
+}
