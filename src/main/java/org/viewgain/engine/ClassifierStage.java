@@ -10,7 +10,6 @@ import org.viewgain.cohort.Extractors;
 import org.viewgain.cohort.Rows;
 import org.viewgain.folds.FitContext;
 import org.viewgain.folds.Seeds;
-import org.viewgain.prep.Standardize;
 import org.viewgain.prep.Transform;
 import org.viewgain.spec.FeatureSet;
 import org.viewgain.spec.Params;
@@ -132,8 +131,8 @@ final class ClassifierStage {
     private Fitted fit(FitContext ctx, ClassifierMethod method, Rows x, int[] y, Params params) {
         Transform.Fitted scaler = null;
         Rows xs = x;
-        if ("standardize".equals(ex.spec().features().scale())) {
-            scaler = new Standardize().fit(ctx, x, y);
+        if (ex.scaler() != null) {
+            scaler = ex.scaler().fit(ctx, x, y);
             xs = scaler.apply(x);
         }
         return new Fitted(scaler, method.fit(ctx, xs, y, ex.spec().cohort().groups().size(), params));

@@ -3,15 +3,16 @@ package org.viewgain.engine;
 import java.util.ArrayList;
 import java.util.List;
 import org.viewgain.folds.FoldPlan;
+import org.viewgain.prep.Transform;
 import org.viewgain.spec.ExperimentSpec;
 import org.viewgain.spec.FeatureSet;
 
 /**
  * Everything a run needs, checked and ready: the spec, the loaded data, the fold plan, the resolved methods and the
- * list of pipelines in output order.
+ * list of pipelines in output order, and the scaling step (null for none).
  */
 public record Experiment(ExperimentSpec spec, StudyData data, FoldPlan plan, List<Resolved.Imputer> imputers,
-                         List<Resolved.Classifier> classifiers, List<Pipeline> pipelines) {
+                         List<Resolved.Classifier> classifiers, List<Pipeline> pipelines, Transform scaler) {
     public Experiment {
         imputers = List.copyOf(imputers);
         classifiers = List.copyOf(classifiers);

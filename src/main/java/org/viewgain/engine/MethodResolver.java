@@ -6,8 +6,6 @@ import java.util.List;
 import java.util.Map;
 import java.util.function.Function;
 import org.viewgain.classify.ClassifierMethod;
-import org.viewgain.classify.ClassifierRegistry;
-import org.viewgain.imputation.ImputerRegistry;
 import org.viewgain.imputation.ViewImputer;
 import org.viewgain.spec.ExperimentSpec;
 import org.viewgain.spec.Params;
@@ -22,12 +20,12 @@ final class MethodResolver {
     private MethodResolver() {
     }
 
-    static List<Resolved.Imputer> imputers(ExperimentSpec spec, Problems problems) {
+    static List<Resolved.Imputer> imputers(ExperimentSpec spec, Methods methods, Problems problems) {
         List<Resolved.Imputer> out = new ArrayList<>();
         for (Specs.Method m : spec.imputers()) {
             ViewImputer method;
             try {
-                method = ImputerRegistry.byMethod(m.method());
+                method = methods.imputer(m.method());
             } catch (IllegalArgumentException e) {
                 problems.add(m.path() + ".method", e.getMessage());
                 continue;
@@ -40,12 +38,12 @@ final class MethodResolver {
         return out;
     }
 
-    static List<Resolved.Classifier> classifiers(ExperimentSpec spec, Problems problems) {
+    static List<Resolved.Classifier> classifiers(ExperimentSpec spec, Methods methods, Problems problems) {
         List<Resolved.Classifier> out = new ArrayList<>();
         for (Specs.Method m : spec.classifiers()) {
             ClassifierMethod method;
             try {
-                method = ClassifierRegistry.create(m.method(), m.wekaClass(), m.wekaOptions());
+                method = methods.classifier(m.method(), m.wekaClass(), m.wekaOptions());
             } catch (IllegalArgumentException e) {
                 problems.add(m.path() + (m.wekaClass() != null && "weka".equals(m.method()) ? ".class" : ".method"),
                         e.getMessage());

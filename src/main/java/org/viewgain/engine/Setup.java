@@ -21,16 +21,22 @@ public final class Setup {
 
     /** Checks and prepares; every user mistake becomes a {@link BadInputException}. */
     public static Experiment prepare(ExperimentSpec spec) {
+        return prepare(spec, Methods.standard());
+    }
+
+    /** Checks and prepares with the given methods (tests pass recording stand-ins). */
+    public static Experiment prepare(ExperimentSpec spec, Methods methods) {
         Problems problems = new Problems(spec.where());
-        List<Resolved.Imputer> imputers = MethodResolver.imputers(spec, problems);
-        List<Resolved.Classifier> classifiers = MethodResolver.classifiers(spec, problems);
+        List<Resolved.Imputer> imputers = MethodResolver.imputers(spec, methods, problems);
+        List<Resolved.Classifier> classifiers = MethodResolver.classifiers(spec, methods, problems);
         problems.throwIfAny();
         StudyData data = DataLoader.load(spec);
         checkCohort(spec, data, problems);
         problems.throwIfAny();
         FoldPlan plan = plan(spec, data);
         List<Pipeline> pipelines = Experiment.pipelines(spec.featureSets(), imputers, classifiers);
-        Experiment ex = new Experiment(spec, data, plan, imputers, classifiers, pipelines);
+        Experiment ex = new Experiment(spec, data, plan, imputers, classifiers, pipelines,
+                methods.scaler(spec.features().scale()));
         checkPlan(ex, problems);
         problems.throwIfAny();
         return ex;
