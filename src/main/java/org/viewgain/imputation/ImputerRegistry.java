@@ -13,6 +13,7 @@ public final class ImputerRegistry {
     static {
         METHODS.put(MeanImputer.METHOD, MeanImputer::new);
         METHODS.put(NearestNeighboursImputer.METHOD, NearestNeighboursImputer::new);
+        METHODS.put(RidgeImputer.METHOD, RidgeImputer::new);
     }
 
     private ImputerRegistry() {
