@@ -14,6 +14,7 @@ public final class ImputerRegistry {
         METHODS.put(MeanImputer.METHOD, MeanImputer::new);
         METHODS.put(NearestNeighboursImputer.METHOD, NearestNeighboursImputer::new);
         METHODS.put(RidgeImputer.METHOD, RidgeImputer::new);
+        METHODS.put(PlsImputer.METHOD, PlsImputer::new);
     }
 
     private ImputerRegistry() {
