@@ -1,0 +1,42 @@
+package org.viewgain.imputation;
+
+import java.util.List;
+import org.viewgain.cohort.Rows;
+import org.viewgain.folds.FitContext;
+import org.viewgain.spec.ParamDef;
+import org.viewgain.spec.Params;
+
+/**
+ * The baseline imputer: every subject gets the training mean of each target column, whatever its source view.
+ * Learned imputers are judged against it ({@link ImputationQuality#skill}).
+ */
+public final class MeanImputer implements ViewImputer {
+
+    /** The name used in specs. */
+    public static final String METHOD = "mean";
+
+    @Override
+    public String method() {
+        return METHOD;
+    }
+
+    @Override
+    public List<ParamDef> parameters() {
+        return List.of();
+    }
+
+    @Override
+    public Fitted fit(FitContext ctx, Rows source, Rows target, Params params) {
+        Shapes.checkTraining(METHOD, source, target);
+        double[] means = Centring.columnMeans(target.x(), target.p());
+        int p = source.p();
+        return (c, rows) -> {
+            Shapes.checkWidth(METHOD, rows, p);
+            double[][] out = new double[rows.n()][];
+            for (int i = 0; i < out.length; i++) {
+                out[i] = means.clone();
+            }
+            return out;
+        };
+    }
+}

@@ -1,0 +1,98 @@
+package org.viewgain.imputation;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+
+import org.apache.commons.math3.linear.Array2DRowRealMatrix;
+import org.apache.commons.math3.linear.ArrayRealVector;
+import org.apache.commons.math3.linear.QRDecomposition;
+import org.apache.commons.math3.linear.RealMatrix;
+import org.apache.commons.math3.linear.RealVector;
+import org.junit.jupiter.api.Test;
+import org.viewgain.cohort.Rows;
+import org.viewgain.spec.Params;
+
+class RidgeImputerTest {
+
+    private static final double ALPHA = 2.5;
+
+    /**
+     * Independent solution: ridge on centred data is least squares on the augmented system [Xc; sqrt(alpha) I]
+     * b = [yc; 0] (Hoerl &amp; Kennard 1970; Hastie, Tibshirani &amp; Friedman, ESL 2nd ed., exercise 3.12),
+     * solved by commons-math3 3.6.1 QR, one target column at a time.
+     */
+    private static double[][] augmentedQrPrediction(Rows src, Rows tgt, Rows news) {
+        int n = src.n();
+        int p = src.p();
+        double[] mx = Centring.columnMeans(src.x(), p);
+        double[] my = Centring.columnMeans(tgt.x(), tgt.p());
+        RealMatrix aug = new Array2DRowRealMatrix(n + p, p);
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < p; j++) {
+                aug.setEntry(i, j, src.x()[i][j] - mx[j]);
+            }
+        }
+        for (int j = 0; j < p; j++) {
+            aug.setEntry(n + j, j, Math.sqrt(ALPHA));
+        }
+        var solver = new QRDecomposition(aug).getSolver();
+        double[][] out = new double[news.n()][tgt.p()];
+        for (int t = 0; t < tgt.p(); t++) {
+            RealVector rhs = new ArrayRealVector(n + p);
+            for (int i = 0; i < n; i++) {
+                rhs.setEntry(i, tgt.x()[i][t] - my[t]);
+            }
+            RealVector b = solver.solve(rhs);
+            for (int r = 0; r < news.n(); r++) {
+                double s = my[t];
+                for (int j = 0; j < p; j++) {
+                    s += (news.x()[r][j] - mx[j]) * b.getEntry(j);
+                }
+                out[r][t] = s;
+            }
+        }
+        return out;
+    }
+
+    private static void assertClose(double[][] expected, double[][] actual, double tol) {
+        assertEquals(expected.length, actual.length);
+        for (int i = 0; i < expected.length; i++) {
+            for (int j = 0; j < expected[i].length; j++) {
+                assertEquals(expected[i][j], actual[i][j], tol, "row " + i + " col " + j);
+            }
+        }
+    }
+
+    @Test
+    void givenSmallProblem_whenFitted_thenPredictionsMatchAugmentedQrSolution() {
+        Rows src = Fixtures.gaussian("s", 30, 6, 1);
+        Rows tgt = Fixtures.linearTarget(src, 3, 0.5, 2);
+        Rows news = Fixtures.gaussian("n", 8, 6, 3);
+        RidgeImputer ridge = new RidgeImputer();
+        double[][] got = ridge.fit(Fixtures.CTX, src, tgt, Params.of("alpha", ALPHA)).impute(Fixtures.CTX, news);
+        // tolerance 1e-9: two exact solvers, differences are rounding only
+        assertClose(augmentedQrPrediction(src, tgt, news), got, 1e-9);
+    }
+
+    @Test
+    void givenMoreFeaturesThanSubjects_whenFitted_thenMatchesAugmentedQrSolution() {
+        Rows src = Fixtures.gaussian("s", 12, 40, 4);
+        Rows tgt = Fixtures.linearTarget(src, 2, 0.5, 5);
+        Rows news = Fixtures.gaussian("n", 5, 40, 6);
+        double[][] got = new RidgeImputer().fit(Fixtures.CTX, src, tgt, Params.of("alpha", ALPHA))
+                .impute(Fixtures.CTX, news);
+        assertClose(augmentedQrPrediction(src, tgt, news), got, 1e-9);
+    }
+
+    @Test
+    void givenEitherShape_whenDualAndPrimalFormsSolved_thenSameAnswerTo1e8() {
+        for (int p : new int[] {5, 60}) {
+            Rows src = Fixtures.gaussian("s", 25, p, 10 + p);
+            Rows tgt = Fixtures.linearTarget(src, 4, 1.0, 20 + p);
+            Rows news = Fixtures.gaussian("n", 7, p, 30 + p);
+            RidgeImputer ridge = new RidgeImputer();
+            double[][] primal = ridge.fit(src, tgt, ALPHA, RidgeImputer.Form.PRIMAL).impute(Fixtures.CTX, news);
+            double[][] dual = ridge.fit(src, tgt, ALPHA, RidgeImputer.Form.DUAL).impute(Fixtures.CTX, news);
+            assertClose(primal, dual, 1e-8);
+        }
+    }
+}
