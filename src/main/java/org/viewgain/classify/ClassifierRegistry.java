@@ -14,6 +14,8 @@ public final class ClassifierRegistry {
 
     static {
         FACTORIES.put("random-forest", SmileForest::new);
+        FACTORIES.put("svm-linear", () -> new SmileSvm(false));
+        FACTORIES.put("svm-rbf", () -> new SmileSvm(true));
     }
 
     private ClassifierRegistry() {

@@ -43,6 +43,32 @@ record ReferenceTable(Rows rows, int[] y, int classes) {
         }
     }
 
+    /**
+     * The same table with every column z-scored over all rows. Only for classifier checks that need comparable
+     * scales; it is not a leak-free pipeline step (prep.Standardize is).
+     */
+    ReferenceTable standardized() {
+        double[][] x = rows.x();
+        int n = x.length;
+        int p = rows.p();
+        double[][] z = new double[n][p];
+        for (int j = 0; j < p; j++) {
+            double mean = 0;
+            for (double[] r : x) {
+                mean += r[j] / n;
+            }
+            double ss = 0;
+            for (double[] r : x) {
+                ss += (r[j] - mean) * (r[j] - mean);
+            }
+            double sd = Math.sqrt(ss / (n - 1));
+            for (int i = 0; i < n; i++) {
+                z[i][j] = (x[i][j] - mean) / sd;
+            }
+        }
+        return new ReferenceTable(rows.withValues(z, rows.featureNames()), y, classes);
+    }
+
     /** Fold of each row for a stratified k-fold split shuffled by the seed. */
     int[] folds(int k, long seed) {
         int[] fold = new int[y.length];
