@@ -16,6 +16,9 @@ public final class ClassifierRegistry {
         FACTORIES.put("random-forest", SmileForest::new);
         FACTORIES.put("svm-linear", () -> new SmileSvm(false));
         FACTORIES.put("svm-rbf", () -> new SmileSvm(true));
+        FACTORIES.put("logistic", SmileLogistic::new);
+        FACTORIES.put("lda", SmileLda::new);
+        FACTORIES.put("knn", SmileKnn::new);
     }
 
     private ClassifierRegistry() {
