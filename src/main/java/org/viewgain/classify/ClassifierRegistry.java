@@ -1,0 +1,60 @@
+package org.viewgain.classify;
+
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.function.Supplier;
+
+/** The classifier methods a spec may name, held in an explicit map from method name to factory. */
+public final class ClassifierRegistry {
+
+    private static final String WEKA = "weka";
+
+    private static final Map<String, Supplier<ClassifierMethod>> FACTORIES = new LinkedHashMap<>();
+
+    static {
+        FACTORIES.put("random-forest", SmileForest::new);
+        FACTORIES.put("svm-linear", () -> new SmileSvm(false));
+        FACTORIES.put("svm-rbf", () -> new SmileSvm(true));
+        FACTORIES.put("logistic", SmileLogistic::new);
+        FACTORIES.put("lda", SmileLda::new);
+        FACTORIES.put("knn", SmileKnn::new);
+    }
+
+    private ClassifierRegistry() {
+    }
+
+    /** Method names in a stable order, {@code weka} last. */
+    public static List<String> methods() {
+        return List.copyOf(FACTORIES.keySet());
+    }
+
+    /**
+     * A classifier method by name.
+     *
+     * @param method      a name from {@link #methods()}
+     * @param wekaClass   fully qualified Weka classifier class when {@code method} is {@code weka}, otherwise null
+     * @param wekaOptions Weka option string applied to every fit (may be null or empty), only with {@code weka}
+     * @throws IllegalArgumentException with a one-line message: an unknown method (listing the allowed ones), a Weka
+     *                                  class that does not exist or is not a classifier, or options it rejects
+     */
+    public static ClassifierMethod create(String method, String wekaClass, String wekaOptions) {
+        Supplier<ClassifierMethod> factory = FACTORIES.get(method);
+        if (WEKA.equals(method)) {
+            return wekaMethod(wekaClass, wekaOptions);
+        }
+        if (factory == null) {
+            throw new IllegalArgumentException("unknown classifier method '" + method + "'; allowed: "
+                    + String.join(", ", methods()));
+        }
+        if (wekaClass != null || (wekaOptions != null && !wekaOptions.isBlank())) {
+            throw new IllegalArgumentException("classifier method '" + method
+                    + "' takes no Weka class or options; those are for method 'weka' only");
+        }
+        return factory.get();
+    }
+
+    private static ClassifierMethod wekaMethod(String wekaClass, String wekaOptions) {
+        throw new IllegalArgumentException("classifier method 'weka' is not available yet");
+    }
+}

@@ -1,0 +1,121 @@
+package org.viewgain.classify;
+
+import java.util.ArrayList;
+import java.util.List;
+import org.viewgain.cohort.Rows;
+import org.viewgain.folds.FitContext;
+import org.viewgain.folds.Seeds;
+import org.viewgain.spec.ParamDef;
+import org.viewgain.spec.Params;
+import smile.classification.SVM;
+import smile.math.MathEx;
+import smile.math.kernel.GaussianKernel;
+import smile.math.kernel.LinearKernel;
+import smile.math.kernel.MercerKernel;
+
+/**
+ * {@code svm-linear} and {@code svm-rbf}: support vector machines (Cortes &amp; Vapnik 1995, Machine Learning
+ * 20:273-297) trained by Smile's LASVM solver (Bordes et al. 2005, JMLR 6:1579-1619). Two classes: one machine with
+ * class 1 as the positive side; more classes: one machine per class against the rest, fitted one after another.
+ * Scores are decision values (not probabilities): for two classes {@code scores[i][1]} is the decision value and
+ * {@code scores[i][0]} its negative, which orders subjects for AUC.
+ *
+ * <p>RBF kernel {@code exp(-gamma * |x - x'|^2)}; {@code gamma: scale} means {@code 1 / (p * var)} with {@code var}
+ * the variance of all training values (population form), as scikit-learn's default. LASVM visits the rows in a random
+ * order, so Smile's thread-local generator is seeded right before each machine is fitted, on the fitting thread.
+ */
+public final class SmileSvm implements ClassifierMethod {
+
+    private final boolean rbf;
+
+    /** @param rbf true for {@code svm-rbf}, false for {@code svm-linear} */
+    public SmileSvm(boolean rbf) {
+        this.rbf = rbf;
+    }
+
+    @Override
+    public String method() {
+        return rbf ? "svm-rbf" : "svm-linear";
+    }
+
+    @Override
+    public List<ParamDef> parameters() {
+        List<ParamDef> defs = new ArrayList<>();
+        defs.add(ParamDef.number("C", Double.MIN_VALUE, Double.MAX_VALUE, 1.0, "soft-margin penalty"));
+        if (rbf) {
+            defs.add(ParamDef.numberOrChoice("gamma", Double.MIN_VALUE, Double.MAX_VALUE, List.of("scale"), "scale",
+                    "RBF kernel width exp(-gamma |x-x'|^2); scale = 1/(features * variance of training values)"));
+        }
+        defs.add(ParamDef.number("tolerance", Double.MIN_VALUE, 1, 1e-3, "LASVM stopping tolerance"));
+        defs.add(ParamDef.integer("epochs", 1, 1000, 1, "LASVM passes over the training rows"));
+        return defs;
+    }
+
+    @Override
+    public boolean producesScores() {
+        return true;
+    }
+
+    /** The gamma a parameter value stands for on these training rows. */
+    static double gamma(Object setting, double[][] x) {
+        if (setting instanceof Number n) {
+            return n.doubleValue();
+        }
+        double sum = 0;
+        double sumSq = 0;
+        long count = 0;
+        for (double[] row : x) {
+            for (double v : row) {
+                sum += v;
+                sumSq += v * v;
+                count++;
+            }
+        }
+        double mean = sum / count;
+        double var = sumSq / count - mean * mean;
+        int p = x[0].length;
+        return var > 0 ? 1.0 / (p * var) : 1.0 / p;
+    }
+
+    @Override
+    public Model fit(FitContext ctx, Rows x, int[] y, int classes, Params params) {
+        TrainingLabels.check(method(), x, y, classes);
+        MercerKernel<double[]> kernel;
+        if (rbf) {
+            // Smile's Gaussian kernel is exp(-|x-x'|^2 / (2 sigma^2)), so sigma = sqrt(1 / (2 gamma)).
+            kernel = new GaussianKernel(Math.sqrt(1.0 / (2.0 * gamma(params.get("gamma"), x.x()))));
+        } else {
+            kernel = new LinearKernel();
+        }
+        int machines = classes == 2 ? 1 : classes;
+        List<SVM<double[]>> fitted = new ArrayList<>(machines);
+        for (int m = 0; m < machines; m++) {
+            int positive = classes == 2 ? 1 : m;
+            int[] signs = new int[y.length];
+            for (int i = 0; i < y.length; i++) {
+                signs[i] = y[i] == positive ? 1 : -1;
+            }
+            MathEx.setSeed(Seeds.derive(ctx.seed(), "svm", m));
+            fitted.add(SVM.fit(x.x(), signs, kernel, params.getDouble("C"), params.getDouble("tolerance"),
+                    params.getInt("epochs")));
+        }
+        return rows -> {
+            int[] labels = new int[rows.n()];
+            double[][] scores = new double[rows.n()][classes];
+            for (int i = 0; i < rows.n(); i++) {
+                double[] row = rows.x()[i];
+                if (classes == 2) {
+                    double f = fitted.get(0).score(row);
+                    scores[i][0] = -f;
+                    scores[i][1] = f;
+                } else {
+                    for (int c = 0; c < classes; c++) {
+                        scores[i][c] = fitted.get(c).score(row);
+                    }
+                }
+                labels[i] = TrainingLabels.argmax(scores[i]);
+            }
+            return new Predictions(labels, scores);
+        };
+    }
+}
