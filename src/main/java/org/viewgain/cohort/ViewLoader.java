@@ -1,0 +1,94 @@
+package org.viewgain.cohort;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import org.viewgain.spec.BadInputException;
+
+/**
+ * Loads a view in one of its two layouts: a matrix directory (one file per subject, found by a path pattern
+ * containing {@code {subject}}) or an edge table (one CSV row per subject). Every problem with user data is a
+ * {@link BadInputException} with a one-line message naming the view, file, line or cell and subject.
+ */
+public final class ViewLoader {
+    /** The placeholder a matrix path pattern must contain. */
+    public static final String SUBJECT_PLACEHOLDER = "{subject}";
+
+    private ViewLoader() {
+    }
+
+    /**
+     * A graph view from one matrix file per subject. Region names come from the files (header row and/or first
+     * column) and must agree between subjects; files without names get R1..Rn. All matrices must have the size of
+     * the first one found and be symmetric within {@code symmetryTolerance} (absolute difference).
+     *
+     * @param patternWithSubject a path containing {@code {subject}}, replaced by each subject id
+     * @param subjectIds         the subjects of the subjects table, in its order
+     * @param missingAllowed     whether a subject may lack a file (the view is then missing for that subject)
+     */
+    public static View matrices(String viewName, Path patternWithSubject, List<String> subjectIds,
+                                boolean missingAllowed, double symmetryTolerance) {
+        String pattern = patternWithSubject.toString();
+        if (!pattern.contains(SUBJECT_PLACEHOLDER)) {
+            throw new BadInputException("view " + viewName + ": matrix path " + pattern + " must contain "
+                    + SUBJECT_PLACEHOLDER + ", which is replaced by each subject id");
+        }
+        if (!(symmetryTolerance >= 0)) {
+            throw new IllegalArgumentException("symmetry tolerance must be >= 0, got " + symmetryTolerance);
+        }
+        Map<String, double[]> upper = new LinkedHashMap<>();
+        MatrixFile.Parsed first = null;
+        MatrixFile.Parsed firstNamed = null;
+        for (String id : subjectIds) {
+            Path file = Path.of(pattern.replace(SUBJECT_PLACEHOLDER, id));
+            if (!Files.exists(file)) {
+                if (missingAllowed) {
+                    continue;
+                }
+                throw new BadInputException("view " + viewName + ": no matrix file for subject " + id
+                        + ": expected " + file + " (this view may not be missing)");
+            }
+            MatrixFile.Parsed p = MatrixFile.read(viewName, id, file, symmetryTolerance);
+            if (first == null) {
+                first = p;
+            } else if (p.regions() != first.regions()) {
+                throw new BadInputException("view " + viewName + ", subject " + id + ", file " + file + ": "
+                        + p.regions() + " regions, but subject " + first.subject() + " (" + first.file() + ") has "
+                        + first.regions());
+            }
+            if (p.names() != null) {
+                if (firstNamed == null) {
+                    firstNamed = p;
+                } else if (!p.names().equals(firstNamed.names())) {
+                    int k = MatrixFile.firstDifference(p.names(), firstNamed.names());
+                    throw new BadInputException("view " + viewName + ", subject " + id + ", file " + file
+                            + ": region " + (k + 1) + " is named " + CsvText.show(p.names().get(k)) + " but "
+                            + CsvText.show(firstNamed.names().get(k)) + " for subject " + firstNamed.subject()
+                            + " (" + firstNamed.file() + "); region names must agree between subjects");
+                }
+            }
+            upper.put(id, p.upper());
+        }
+        if (first == null) {
+            throw new BadInputException("view " + viewName + ": no matrix file found for any of the "
+                    + subjectIds.size() + " subjects (pattern " + pattern + ")");
+        }
+        List<String> names = firstNamed != null ? firstNamed.names() : View.defaultRegionNames(first.regions());
+        return View.graph(viewName, names, upper);
+    }
+
+    /**
+     * A tabular view from an edge table: a CSV with a header row, one row per subject, an id column and one
+     * column per feature (every column but the id column). Every cell must be a finite number; a subject without
+     * a row is missing from the view, which is an error unless {@code missingAllowed}.
+     *
+     * @param idColumn   the id column, or {@code null} for the first column
+     * @param subjectIds the subjects of the subjects table; a row for any other id is an error
+     */
+    public static View edgeTable(String viewName, Path csv, String idColumn, List<String> subjectIds,
+                                 boolean missingAllowed) {
+        return EdgeTable.read(viewName, csv, idColumn, subjectIds, missingAllowed);
+    }
+}
