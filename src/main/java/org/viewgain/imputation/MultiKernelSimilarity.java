@@ -118,7 +118,7 @@ final class MultiKernelSimilarity {
                 sym[i][j] = (s[i][j] + s[j][i]) / 2;
             }
         }
-        double[][] vec = SmileMatrices.symmetricEigen(sym).vectors();
+        double[][] vec = SmileMatrices.topEigenvectors(sym, r);
         double[][] f = new double[n][r];
         for (int i = 0; i < n; i++) {
             double norm = 0;
@@ -137,14 +137,23 @@ final class MultiKernelSimilarity {
     static double[] kernelWeights(double[][][] kernels, double[][] s) {
         int nk = kernels.length;
         int n = s.length;
+        int[][] nonZero = new int[n][];
+        for (int i = 0; i < n; i++) {
+            int[] buf = new int[n];
+            int c = 0;
+            for (int j = 0; j < n; j++) {
+                if (s[i][j] != 0) {
+                    buf[c++] = j;
+                }
+            }
+            nonZero[i] = java.util.Arrays.copyOf(buf, c);
+        }
         double[] dd = new double[nk];
         for (int l = 0; l < nk; l++) {
             double t = 0;
             for (int i = 0; i < n; i++) {
-                for (int j = 0; j < n; j++) {
-                    if (s[i][j] != 0) {
-                        t += s[i][j] * (1 - kernels[l][i][j]);
-                    }
+                for (int j : nonZero[i]) {
+                    t += s[i][j] * (1 - kernels[l][i][j]);
                 }
             }
             dd[l] = t / n;
