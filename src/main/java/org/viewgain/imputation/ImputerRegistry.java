@@ -15,6 +15,7 @@ public final class ImputerRegistry {
         METHODS.put(NearestNeighboursImputer.METHOD, NearestNeighboursImputer::new);
         METHODS.put(RidgeImputer.METHOD, RidgeImputer::new);
         METHODS.put(PlsImputer.METHOD, PlsImputer::new);
+        METHODS.put(MultiKernelNeighboursImputer.METHOD, MultiKernelNeighboursImputer::new);
     }
 
     private ImputerRegistry() {

@@ -46,27 +46,33 @@ public final class RidgeImputer implements ViewImputer {
         double[][] xc = Centring.centre(source.x(), mx);
         double[][] yc = Centring.centre(target.x(), my);
         boolean dual = form == Form.DUAL || (form == Form.AUTO && p > n);
-        double[][] coef;
         if (dual) {
+            // predictions (x - mx) Xc' A + my: the p x q coefficient matrix is never formed
             double[][] k = SmileMatrices.gram(xc);
             addToDiagonal(k, alpha);
             double[][] a = SmileMatrices.solveSpd(k, yc);
-            coef = SmileMatrices.transposeTimes(xc, a);
-        } else {
-            double[][] g = SmileMatrices.transposeTimes(xc, xc);
-            addToDiagonal(g, alpha);
-            coef = SmileMatrices.solveSpd(g, SmileMatrices.transposeTimes(xc, yc));
+            return (c, rows) -> {
+                Shapes.checkWidth(METHOD, rows, p);
+                double[][] kNew = SmileMatrices.cross(Centring.centre(rows.x(), mx), xc);
+                return addMeans(SmileMatrices.times(kNew, a), my);
+            };
         }
+        double[][] g = SmileMatrices.transposeTimes(xc, xc);
+        addToDiagonal(g, alpha);
+        double[][] coef = SmileMatrices.solveSpd(g, SmileMatrices.transposeTimes(xc, yc));
         return (c, rows) -> {
             Shapes.checkWidth(METHOD, rows, p);
-            double[][] out = SmileMatrices.times(Centring.centre(rows.x(), mx), coef);
-            for (double[] row : out) {
-                for (int j = 0; j < row.length; j++) {
-                    row[j] += my[j];
-                }
-            }
-            return out;
+            return addMeans(SmileMatrices.times(Centring.centre(rows.x(), mx), coef), my);
         };
+    }
+
+    private static double[][] addMeans(double[][] out, double[] my) {
+        for (double[] row : out) {
+            for (int j = 0; j < row.length; j++) {
+                row[j] += my[j];
+            }
+        }
+        return out;
     }
 
     private static void addToDiagonal(double[][] a, double v) {

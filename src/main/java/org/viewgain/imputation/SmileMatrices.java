@@ -1,5 +1,9 @@
 package org.viewgain.imputation;
 
+import smile.math.blas.EVDJob;
+import smile.math.blas.EigenRange;
+import smile.math.blas.LAPACK;
+import smile.math.blas.Layout;
 import smile.math.blas.UPLO;
 import smile.math.matrix.Matrix;
 
@@ -56,6 +60,38 @@ final class SmileMatrices {
         ma.uplo(UPLO.LOWER);
         Matrix.EVD evd = ma.eigen(false, true, true).sort();
         return new SymmetricEigen(evd.wr.clone(), evd.Vr.toArray());
+    }
+
+    /**
+     * The eigenvectors of the r largest eigenvalues of a symmetric matrix (LAPACK dsyevr with an index range, so
+     * the rest are not computed), largest first.
+     *
+     * @return n x r, column c the unit eigenvector of the (c+1)-th largest eigenvalue
+     * @throws ArithmeticException when LAPACK reports a failure
+     */
+    static double[][] topEigenvectors(double[][] a, int r) {
+        int n = a.length;
+        double[] packed = new double[n * n];
+        for (int i = 0; i < n; i++) {
+            System.arraycopy(a[i], 0, packed, i * n, n);
+        }
+        int[] found = new int[1];
+        double[] values = new double[n];
+        double[] z = new double[n * r];
+        int[] support = new int[2 * r];
+        int info = LAPACK.engine.syevr(Layout.COL_MAJOR, EVDJob.VECTORS, EigenRange.INDEX, UPLO.LOWER, n, packed, n,
+                0, 0, n - r + 1, n, 0, found, values, z, n, support);
+        if (info != 0 || found[0] != r) {
+            throw new ArithmeticException("LAPACK dsyevr failed: info " + info + ", found " + found[0] + " of " + r);
+        }
+        double[][] out = new double[n][r];
+        for (int c = 0; c < r; c++) {
+            int col = r - 1 - c;
+            for (int i = 0; i < n; i++) {
+                out[i][c] = z[col * n + i];
+            }
+        }
+        return out;
     }
 
     /** Eigenvalues (descending) and eigenvectors (columns) of a symmetric matrix. */
