@@ -46,7 +46,8 @@ class FoldPlanTest {
         int[] s = strata();
         FoldPlan plan = FoldPlan.stratifiedKFold(s, 5, 2, 11);
         for (int r = 0; r < 2; r++) {
-            int[] sizes = IntStream.range(0, 5).map(f -> plan.test(r, f).length).toArray();
+            final int rep = r;
+            int[] sizes = IntStream.range(0, 5).map(f -> plan.test(rep, f).length).toArray();
             assertTrue(Arrays.stream(sizes).max().getAsInt() - Arrays.stream(sizes).min().getAsInt() <= 1);
             for (int stratum = 0; stratum < 3; stratum++) {
                 final int st = stratum;

@@ -20,7 +20,7 @@ class SpecLoaderTest {
               groups: [control, patient]
               positive: patient
             views:
-              source: { matrices: views/a/{subject}.csv }
+              source: { matrices: "views/a/{subject}.csv" }
               target: { table: b.csv, missing: allowed }
             imputers:
               - { name: r, method: ridge, grid: { alpha: [1, 10] } }

@@ -1,0 +1,117 @@
+package org.viewgain.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.io.StringWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.stream.Stream;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import picocli.CommandLine;
+
+/** Exit codes and messages of the command line. */
+class CliTest {
+    @TempDir
+    Path dir;
+
+    record Outcome(int code, String out, String err) {
+    }
+
+    static Outcome run(String... args) {
+        CommandLine cl = Main.commandLine();
+        StringWriter out = new StringWriter();
+        StringWriter err = new StringWriter();
+        cl.setOut(new PrintWriter(out));
+        cl.setErr(new PrintWriter(err));
+        int code = cl.execute(args);
+        return new Outcome(code, out.toString(), err.toString());
+    }
+
+    Path cohort() throws IOException {
+        Files.writeString(dir.resolve("subjects.csv"), "subject,group\na1,control\na2,patient\na3,control\na4,patient\n"
+                + "a5,control\na6,patient\n");
+        Files.writeString(dir.resolve("src.csv"), "subject,x1,x2\na1,1,2\na2,2,3\na3,1,1\na4,3,3\na5,0,1\na6,2,2\n");
+        return dir;
+    }
+
+    static final String SPEC = """
+            experiment: tiny
+            cohort: { subjects: subjects.csv, groups: [control, patient], positive: patient }
+            views: { source: { table: src.csv } }
+            feature-sets: [source]
+            classifiers: [ { name: k, method: knn, fixed: { k: 1 } } ]
+            validation: { outer: { folds: 2 }, inner: { folds: 2 } }
+            """;
+
+    @Test
+    void givenHelpAndVersion_whenAsked_thenEveryCommandAnswersWithZero() {
+        for (String cmd : new String[] {"check", "run", "demo"}) {
+            Outcome o = run(cmd, "--help");
+            assertEquals(0, o.code(), cmd);
+            assertTrue(o.out().contains("Usage: viewgain " + cmd), o.out());
+            assertEquals(0, run(cmd, "--version").code());
+        }
+        Outcome v = run("--version");
+        assertEquals(0, v.code());
+        assertTrue(v.out().startsWith("viewgain "), v.out());
+    }
+
+    @Test
+    void givenMalformedSpec_whenRun_thenExit2WithOneLineNamingKeyAndLine() throws IOException {
+        cohort();
+        Path spec = dir.resolve("bad.yaml");
+        Files.writeString(spec, SPEC.replace("feature-sets", "feature-set"));
+        Outcome o = run("run", spec.toString(), "--out", dir.resolve("results").toString(), "--quiet");
+        assertEquals(2, o.code(), o.err());
+        assertEquals(1, o.err().strip().lines().count(), o.err());
+        assertTrue(o.err().contains("bad.yaml:4: feature-set: unknown key"), o.err());
+        assertTrue(!o.err().contains("Exception") && !o.err().contains("\tat "), o.err());
+        assertTrue(!Files.exists(dir.resolve("results")), "nothing may be written for a bad spec");
+    }
+
+    @Test
+    void givenMalformedCsv_whenChecked_thenExit2NamingFileAndLine() throws IOException {
+        cohort();
+        Files.writeString(dir.resolve("src.csv"), "subject,x1,x2\na1,1,2\na2,2,oops\na3,1,1\na4,3,3\na5,0,1\na6,2,2\n");
+        Path spec = dir.resolve("spec.yaml");
+        Files.writeString(spec, SPEC);
+        Outcome o = run("check", spec.toString());
+        assertEquals(2, o.code(), o.err());
+        assertEquals(1, o.err().strip().lines().count(), o.err());
+        assertTrue(o.err().contains("src.csv") && o.err().contains("3") && o.err().contains("a2"), o.err());
+    }
+
+    @Test
+    void givenGoodSpec_whenCheckedThenRun_thenSummaryAndANewFolderPerRun() throws IOException {
+        cohort();
+        Path spec = dir.resolve("spec.yaml");
+        Files.writeString(spec, SPEC);
+        Outcome c = run("check", spec.toString());
+        assertEquals(0, c.code(), c.err());
+        assertTrue(c.out().contains("model fits in this run: 2"), c.out());
+        Path results = dir.resolve("results");
+        Outcome r1 = run("run", spec.toString(), "--out", results.toString(), "--quiet", "--threads", "1");
+        Outcome r2 = run("run", spec.toString(), "--out", results.toString(), "--quiet", "--threads", "1");
+        assertEquals(0, r1.code(), r1.err());
+        assertEquals(0, r2.code(), r2.err());
+        assertEquals("", r1.err());
+        try (Stream<Path> runs = Files.list(results.resolve("tiny"))) {
+            assertEquals(2, runs.count());
+        }
+        assertTrue(r1.out().contains("balanced acc."), r1.out());
+    }
+
+    @Test
+    void givenZeroThreads_whenRun_thenUsageErrorExit2() throws IOException {
+        cohort();
+        Path spec = dir.resolve("spec.yaml");
+        Files.writeString(spec, SPEC);
+        Outcome o = run("run", spec.toString(), "--threads", "0", "--out", dir.resolve("r").toString());
+        assertEquals(2, o.code());
+        assertTrue(o.err().contains("--threads must be at least 1"), o.err());
+    }
+}
