@@ -7,6 +7,7 @@ import java.util.List;
 public final class Problems {
     private final SourceMap where;
     private final List<String> messages = new ArrayList<>();
+    private final java.util.Set<String> misspelled = new java.util.HashSet<>();
 
     public Problems(SourceMap where) {
         this.where = where;
@@ -14,6 +15,16 @@ public final class Problems {
 
     public void add(String path, String message) {
         messages.add(where.at(path, message));
+    }
+
+    /** Notes that an unknown key looks like a misspelling of {@code path}, so checks of that key stay quiet. */
+    void misspelled(String path) {
+        misspelled.add(path);
+    }
+
+    /** True when the key was probably given under a misspelled name (its absence is already reported). */
+    boolean wasMisspelled(String path) {
+        return misspelled.contains(path);
     }
 
     public boolean isEmpty() {

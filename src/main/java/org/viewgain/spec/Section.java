@@ -40,14 +40,49 @@ final class Section {
         while (it.hasNext()) {
             String k = it.next();
             if (!allowed.contains(k)) {
-                problems.add(key(k), "unknown key; allowed here: " + String.join(", ", allowed.stream().sorted().toList()));
+                String near = allowed.stream().filter(a -> editDistance(a, k) <= 2).sorted().findFirst().orElse(null);
+                if (near != null && !node.has(near)) {
+                    problems.misspelled(key(near));
+                    problems.add(key(k), "unknown key; did you mean '" + near + "'? (allowed here: "
+                            + String.join(", ", allowed.stream().sorted().toList()) + ")");
+                } else {
+                    problems.add(key(k), "unknown key; allowed here: "
+                            + String.join(", ", allowed.stream().sorted().toList()));
+                }
             }
+        }
+    }
+
+    /** Levenshtein distance, for "did you mean" hints. */
+    static int editDistance(String a, String b) {
+        int[] prev = new int[b.length() + 1];
+        int[] cur = new int[b.length() + 1];
+        for (int j = 0; j <= b.length(); j++) {
+            prev[j] = j;
+        }
+        for (int i = 1; i <= a.length(); i++) {
+            cur[0] = i;
+            for (int j = 1; j <= b.length(); j++) {
+                int sub = prev[j - 1] + (a.charAt(i - 1) == b.charAt(j - 1) ? 0 : 1);
+                cur[j] = Math.min(sub, Math.min(prev[j] + 1, cur[j - 1] + 1));
+            }
+            int[] t = prev;
+            prev = cur;
+            cur = t;
+        }
+        return prev[b.length()];
+    }
+
+    /** Records that a required key is missing, unless it was given under a misspelled name. */
+    void missing(String name, String message) {
+        if (!problems.wasMisspelled(key(name))) {
+            problems.add(key(name), message);
         }
     }
 
     Section section(String name, boolean required) {
         if (!has(name)) {
-            if (required) {
+            if (required && !problems.wasMisspelled(key(name))) {
                 problems.add(key(name), "missing; this section is required");
             }
             return new Section(null, key(name), problems);
@@ -63,7 +98,7 @@ final class Section {
     String text(String name, String def, boolean required) {
         if (!has(name)) {
             if (required) {
-                problems.add(key(name), "missing; required");
+                missing(name, "missing; required");
             }
             return def;
         }

@@ -65,7 +65,8 @@ public final class SpecLoader {
         List<Specs.Method> imputers = methods(top, "imputers", base, false);
         Specs.TrainingImputation training = top.has("imputed-for-training")
                 ? trainingImputation(top) : Specs.TrainingImputation.CROSS_FITTED;
-        List<FeatureSet> sets = featureSets(top, problems);
+        // a misspelled feature-sets key is already reported; do not pile consequences of the default on top
+        List<FeatureSet> sets = problems.wasMisspelled("feature-sets") ? List.of() : featureSets(top, problems);
         List<Specs.Method> classifiers = methods(top, "classifiers", base, true);
         Specs.Validation validation = validation(top.section("validation", false), cohort);
 
@@ -202,7 +203,7 @@ public final class SpecLoader {
         List<Specs.Method> out = new ArrayList<>();
         if (!top.has(key)) {
             if (required) {
-                top.problems.add(key, "missing; list at least one entry with a method");
+                top.missing(key, "missing; list at least one entry with a method");
             }
             return out;
         }

@@ -32,9 +32,14 @@ class CliTest {
     }
 
     Path cohort() throws IOException {
-        Files.writeString(dir.resolve("subjects.csv"), "subject,group\na1,control\na2,patient\na3,control\na4,patient\n"
-                + "a5,control\na6,patient\n");
-        Files.writeString(dir.resolve("src.csv"), "subject,x1,x2\na1,1,2\na2,2,3\na3,1,1\na4,3,3\na5,0,1\na6,2,2\n");
+        StringBuilder subjects = new StringBuilder("subject,group\n");
+        StringBuilder src = new StringBuilder("subject,x1,x2\n");
+        for (int i = 1; i <= 12; i++) {
+            subjects.append("a").append(i).append(i % 2 == 0 ? ",patient\n" : ",control\n");
+            src.append("a").append(i).append(',').append(i % 3).append(',').append(i % 2 + i % 5).append('\n');
+        }
+        Files.writeString(dir.resolve("subjects.csv"), subjects);
+        Files.writeString(dir.resolve("src.csv"), src);
         return dir;
     }
 
@@ -76,13 +81,13 @@ class CliTest {
     @Test
     void givenMalformedCsv_whenChecked_thenExit2NamingFileAndLine() throws IOException {
         cohort();
-        Files.writeString(dir.resolve("src.csv"), "subject,x1,x2\na1,1,2\na2,2,oops\na3,1,1\na4,3,3\na5,0,1\na6,2,2\n");
+        Files.writeString(dir.resolve("src.csv"), Files.readString(dir.resolve("src.csv")).replace("a2,2,", "a2,oops,"));
         Path spec = dir.resolve("spec.yaml");
         Files.writeString(spec, SPEC);
         Outcome o = run("check", spec.toString());
         assertEquals(2, o.code(), o.err());
         assertEquals(1, o.err().strip().lines().count(), o.err());
-        assertTrue(o.err().contains("src.csv") && o.err().contains("3") && o.err().contains("a2"), o.err());
+        assertTrue(o.err().contains("src.csv") && o.err().contains("line 3") && o.err().contains("a2"), o.err());
     }
 
     @Test
