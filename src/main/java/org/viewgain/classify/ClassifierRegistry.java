@@ -19,6 +19,9 @@ public final class ClassifierRegistry {
         FACTORIES.put("logistic", SmileLogistic::new);
         FACTORIES.put("lda", SmileLda::new);
         FACTORIES.put("knn", SmileKnn::new);
+        FACTORIES.put(WEKA, () -> {
+            throw new IllegalStateException("weka is built by create(method, class, options)");
+        });
     }
 
     private ClassifierRegistry() {
@@ -55,6 +58,6 @@ public final class ClassifierRegistry {
     }
 
     private static ClassifierMethod wekaMethod(String wekaClass, String wekaOptions) {
-        throw new IllegalArgumentException("classifier method 'weka' is not available yet");
+        return new WekaClassifier(wekaClass, wekaOptions);
     }
 }

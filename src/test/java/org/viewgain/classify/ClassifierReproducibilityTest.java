@@ -25,7 +25,9 @@ class ClassifierReproducibilityTest {
                 Arguments.of("svm-rbf", null, Map.of(), true),
                 Arguments.of("logistic", null, Map.of(), false),
                 Arguments.of("lda", null, Map.of(), false),
-                Arguments.of("knn", null, Map.of(), false));
+                Arguments.of("knn", null, Map.of(), false),
+                Arguments.of("weka", "weka.classifiers.trees.RandomForest", Map.of("-I", 30), true),
+                Arguments.of("weka", "weka.classifiers.functions.Logistic", Map.of("-R", 0.01), false));
     }
 
     @ParameterizedTest(name = "{0}")

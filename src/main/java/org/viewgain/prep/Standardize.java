@@ -1,0 +1,45 @@
+package org.viewgain.prep;
+
+import org.viewgain.cohort.Rows;
+import org.viewgain.folds.FitContext;
+
+/**
+ * Centres each column on its training mean and divides by its training standard deviation (divisor n - 1). A column
+ * constant on the training rows becomes 0 for every row, so no NaN appears.
+ */
+public final class Standardize implements Transform {
+
+    @Override
+    public String name() {
+        return "standardize";
+    }
+
+    @Override
+    public Fitted fit(FitContext ctx, Rows train, int[] y) {
+        int n = train.n();
+        int p = train.p();
+        if (!(n >= 1)) {
+            throw new IllegalArgumentException("standardize: no training rows");
+        }
+        double[] mean = ColumnStats.means(train.x(), p);
+        double[] sd = new double[p];
+        for (int j = 0; j < p; j++) {
+            double ss = 0;
+            for (double[] r : train.x()) {
+                double d = r[j] - mean[j];
+                ss += d * d;
+            }
+            sd[j] = n > 1 ? Math.sqrt(ss / (n - 1)) : 0;
+        }
+        return rows -> {
+            double[][] out = new double[rows.n()][p];
+            for (int i = 0; i < rows.n(); i++) {
+                double[] r = rows.x()[i];
+                for (int j = 0; j < p; j++) {
+                    out[i][j] = sd[j] > 0 ? (r[j] - mean[j]) / sd[j] : 0;
+                }
+            }
+            return rows.withValues(out, rows.featureNames());
+        };
+    }
+}
