@@ -72,18 +72,23 @@ public final class DemoCohort {
         for (int i = 0; i < n; i++) {
             cells[i][i] = "0.000000";
             for (int j = i + 1; j < n; j++) {
-                String v = String.format(Locale.ROOT, "%.6f", upper[k++]);
+                String v = sixDecimals(upper[k++]);
                 cells[i][j] = v;
                 cells[j][i] = v;
             }
         }
-        try (BufferedWriter w = Files.newBufferedWriter(file, StandardCharsets.UTF_8)) {
-            w.write(String.join(",", regions));
-            w.write("\n");
-            for (String[] row : cells) {
-                w.write(String.join(",", row));
-                w.write("\n");
-            }
+        StringBuilder sb = new StringBuilder(n * n * 9 + 400);
+        sb.append(String.join(",", regions)).append('\n');
+        for (String[] row : cells) {
+            sb.append(String.join(",", row)).append('\n');
         }
+        Files.writeString(file, sb, StandardCharsets.UTF_8);
+    }
+
+    /** Fixed six decimals, rounded half away from zero; much faster than String.format for ~10^5 cells. */
+    static String sixDecimals(double v) {
+        long scaled = Math.round(Math.abs(v) * 1e6);
+        String frac = Long.toString(1_000_000 + scaled % 1_000_000).substring(1);
+        return (v < 0 && scaled != 0 ? "-" : "") + (scaled / 1_000_000) + "." + frac;
     }
 }

@@ -88,6 +88,10 @@ public final class ClassificationMetrics {
             if (truth[i] < 0 || truth[i] >= classes || predicted[i] < 0 || predicted[i] >= classes) {
                 throw new IllegalArgumentException("class index out of 0.." + (classes - 1) + " at row " + i);
             }
+            if (scores != null && scores[i].length != classes) {
+                throw new IllegalArgumentException("row " + i + " has " + scores[i].length + " scores, expected "
+                        + classes);
+            }
             confusion[truth[i]][predicted[i]]++;
         }
         long n = truth.length;

@@ -43,6 +43,12 @@ class SubjectsTableTest {
     }
 
     @Test
+    void givenByteOrderMarkAndQuotedCells_whenLoaded_thenFirstColumnFoundAndQuotesRemoved() {
+        Path csv = write(dir, "s.csv", "\uFEFFsubject,group,site,age,sex\n\"0,1\",patient,north,3,1\n");
+        assertEquals("0,1", load(csv).get(0).id());
+    }
+
+    @Test
     void givenMissingFile_whenLoaded_thenMessageNamesFile() {
         expectBadInput(() -> load(dir.resolve("nope.csv")), "not found", "nope.csv");
     }

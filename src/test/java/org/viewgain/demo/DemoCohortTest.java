@@ -74,6 +74,16 @@ class DemoCohortTest {
     }
 
     @Test
+    void givenValues_whenWrittenWithSixDecimals_thenFixedNotationRoundedAtTheSixthDecimal() {
+        // Expected strings follow printf's %.6f for these values (C standard fixed notation), exact.
+        assertEquals("0.500000", DemoCohort.sixDecimals(0.5));
+        assertEquals("0.000000", DemoCohort.sixDecimals(1e-7));
+        assertEquals("1.000000", DemoCohort.sixDecimals(0.9999996));
+        assertEquals("-0.250000", DemoCohort.sixDecimals(-0.25));
+        assertEquals("12.034000", DemoCohort.sixDecimals(12.034));
+    }
+
+    @Test
     void givenDemoCohort_whenLoaded_thenShapeAndMissingnessAsDescribed() {
         assertEquals(120, subjects.size());
         assertEquals(60, subjects.stream().filter(s -> s.group().equals("patient")).count());

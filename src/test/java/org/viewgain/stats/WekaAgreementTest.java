@@ -1,6 +1,7 @@
 package org.viewgain.stats;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.ArrayList;
 import java.util.List;
@@ -100,7 +101,7 @@ class WekaAgreementTest {
         assertEquals(f, ours.get("f1"), TOL);
         assertEquals(auc, ours.get("auc"), TOL);
         // guard: the scorer must make some errors, or the comparison would be trivial
-        assertEquals(true, weka.pctCorrect() < 100 && weka.pctCorrect() > 60);
+        assertTrue(weka.pctCorrect() < 100 && weka.pctCorrect() > 60);
     }
 
     private static Evaluation evaluate(int[] truth, double[][] dist, List<String> classes) throws Exception {

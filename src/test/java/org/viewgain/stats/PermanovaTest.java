@@ -1,0 +1,105 @@
+package org.viewgain.stats;
+
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertNotEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.util.ArrayList;
+import java.util.List;
+import org.apache.commons.csv.CSVRecord;
+import org.apache.commons.math3.stat.inference.OneWayAnova;
+import org.junit.jupiter.api.Test;
+
+class PermanovaTest {
+    // scikit-bio PERMANOVA test suite, verified there against R vegan (REFERENCES.md); groups A, A, B, B
+    private static final double[][] D_TIES = {{0, 1, 1, 4}, {1, 0, 3, 2}, {1, 3, 0, 3}, {4, 2, 3, 0}};
+    private static final double[][] D_NO_TIES = {{0, 1, 5, 4}, {1, 0, 3, 2}, {5, 3, 0, 3}, {4, 2, 3, 0}};
+    private static final int[] AABB = {0, 0, 1, 1};
+
+    @Test
+    void givenSkbioMatrices_whenPseudoF_thenReferenceValues() {
+        // reference library values F = 2.0 and 4.4; tolerance 1e-12 (exact fractions)
+        assertEquals(2.0, Permanova.pseudoF(D_TIES, AABB), 1e-12);
+        assertEquals(4.4, Permanova.pseudoF(D_NO_TIES, AABB), 1e-12);
+    }
+
+    @Test
+    void givenSkbioMatrices_whenExact_thenRecomputedEnumerationP() {
+        // REFERENCES.md: exact full-enumeration p 0.6667 (4 of 6 arrangements) and 0.3333 (2 of 6), recomputed
+        Permanova.Result ties = Permanova.exact(D_TIES, new int[] {7, 7, 3, 3});
+        assertEquals(4.0 / 6, ties.p(), 1e-12);
+        assertEquals(6, ties.permutations());
+        assertTrue(ties.exact());
+        assertEquals(2.0 / 6, Permanova.exact(D_NO_TIES, AABB).p(), 1e-12);
+    }
+
+    @Test
+    void givenTinyDesign_whenMonteCarlo_thenNearExactP_andSeedDeterministic() {
+        Permanova.Result a = Permanova.monteCarlo(D_TIES, AABB, 999, 5);
+        assertEquals(a, Permanova.monteCarlo(D_TIES, AABB, 999, 5));
+        assertEquals(2.0, a.pseudoF(), 1e-12);
+        // Monte Carlo SE of p near 2/3 with 999 draws is about 0.015; tolerance 0.06 (4 SE)
+        assertEquals(4.0 / 6, a.p(), 0.06);
+    }
+
+    @Test
+    void givenIrisSepalLengthDistances_whenPseudoF_thenEqualsOneWayAnovaF() {
+        // Anderson 2001: with Euclidean distances on one variable the pseudo-F is Fisher's F; reference library
+        // commons-math3 3.6.1 OneWayAnova; tolerance 1e-9 relative (rounding of sums)
+        List<CSVRecord> rows = ReferenceData.read("iris.csv");
+        double[] length = ReferenceData.column(rows, "sepal_length");
+        List<String> species = List.of("setosa", "versicolor", "virginica");
+        double[][] features = new double[length.length][];
+        int[] groups = new int[length.length];
+        List<List<Double>> byGroup = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
+        for (int i = 0; i < length.length; i++) {
+            features[i] = new double[] {length[i]};
+            groups[i] = species.indexOf(rows.get(i).get("species"));
+            byGroup.get(groups[i]).add(length[i]);
+        }
+        List<double[]> samples = byGroup.stream().map(g -> g.stream().mapToDouble(Double::doubleValue).toArray())
+                .toList();
+        double fisherF = new OneWayAnova().anovaFValue(samples);
+        double f = Permanova.pseudoF(Distances.euclidean(features), groups);
+        assertEquals(fisherF, f, 1e-9 * fisherF);
+        Permanova.Result r = Permanova.monteCarlo(Distances.euclidean(features), groups, 99, 1);
+        // species differ strongly (F about 119): no relabelling reaches it, p = 1/(99 + 1)
+        assertEquals(0.01, r.p(), 1e-15);
+    }
+
+    @Test
+    void givenNullData_whenMonteCarloWithTwoSeeds_thenDifferentButValidP() {
+        double[][] rows = new double[30][];
+        int[] groups = new int[30];
+        java.util.SplittableRandom random = new java.util.SplittableRandom(3);
+        for (int i = 0; i < rows.length; i++) {
+            rows[i] = new double[] {random.nextGaussian(), random.nextGaussian()};
+            groups[i] = i % 2;
+        }
+        double[][] d = Distances.euclidean(rows);
+        Permanova.Result a = Permanova.monteCarlo(d, groups, 199, 1);
+        Permanova.Result b = Permanova.monteCarlo(d, groups, 199, 2);
+        assertNotEquals(a.p(), b.p());
+        assertTrue(a.p() > 0 && a.p() <= 1);
+    }
+
+    @Test
+    void givenRows_whenEuclidean_thenPythagoreanDistances_andBadInputRejected() {
+        double[][] d = Distances.euclidean(new double[][] {{0, 0}, {3, 4}, {6, 8}});
+        assertArrayEquals(new double[] {0, 5, 10}, d[0], 1e-15);
+        assertArrayEquals(new double[] {5, 0, 5}, d[1], 1e-15);
+        assertThrows(IllegalArgumentException.class, () -> Distances.euclidean(new double[][] {{0}, {1, 2}}));
+        assertThrows(IllegalArgumentException.class, () -> Permanova.pseudoF(D_TIES, new int[] {0, 0, 0, 0}));
+        double[][] asymmetric = {{0, 1, 1, 4}, {2, 0, 3, 2}, {1, 3, 0, 3}, {4, 2, 3, 0}};
+        assertThrows(IllegalArgumentException.class, () -> Permanova.pseudoF(asymmetric, AABB));
+        int[] halves = new int[60];
+        for (int i = 30; i < 60; i++) {
+            halves[i] = 1;
+        }
+        // C(60, 30) arrangements, far beyond the enumeration limit
+        assertThrows(IllegalArgumentException.class, () -> Permanova.exact(new double[60][60], halves));
+        assertTrue(Double.isNaN(Permanova.pseudoF(new double[60][60], halves)));
+    }
+}
