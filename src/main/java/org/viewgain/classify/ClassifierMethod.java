@@ -45,5 +45,19 @@ public interface ClassifierMethod {
     /** A trained model. */
     interface Model {
         Predictions predict(Rows x);
+
+        /**
+         * How much each input feature mattered to this model (e.g. impurity importance of a forest, absolute
+         * weights of a linear model on its standardized inputs), in the order of the training columns; null when
+         * the method offers none.
+         */
+        default double[] importance() {
+            return null;
+        }
+
+        /** What {@link #importance()} measures, e.g. {@code impurity} or {@code abs_weight}; null when none. */
+        default String importanceKind() {
+            return null;
+        }
     }
 }

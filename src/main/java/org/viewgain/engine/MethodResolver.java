@@ -30,7 +30,7 @@ final class MethodResolver {
                 problems.add(m.path() + ".method", e.getMessage());
                 continue;
             }
-            List<Params> grid = expand(m, method::resolve, problems);
+            List<Params> grid = resolvePaths(expand(m, method::resolve, problems), method.parameters(), spec);
             if (!grid.isEmpty()) {
                 out.add(new Resolved.Imputer(m.name(), method, grid));
             }
@@ -53,6 +53,23 @@ final class MethodResolver {
             if (!grid.isEmpty()) {
                 out.add(new Resolved.Classifier(m.name(), method, grid));
             }
+        }
+        return out;
+    }
+
+    /** Makes PATH parameters absolute, relative to the spec file's folder. */
+    private static List<Params> resolvePaths(List<Params> grid, List<org.viewgain.spec.ParamDef> defs,
+                                             ExperimentSpec spec) {
+        java.nio.file.Path base = spec.specFile().toAbsolutePath().getParent();
+        List<Params> out = new ArrayList<>();
+        for (Params p : grid) {
+            Params q = p;
+            for (org.viewgain.spec.ParamDef d : defs) {
+                if (d.kind() == org.viewgain.spec.ParamDef.Kind.PATH && p.has(d.name())) {
+                    q = q.with(d.name(), base.resolve(p.getString(d.name())).normalize().toString());
+                }
+            }
+            out.add(q);
         }
         return out;
     }

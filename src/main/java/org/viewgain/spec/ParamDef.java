@@ -20,7 +20,9 @@ public record ParamDef(String name, Kind kind, double min, double max, List<Stri
                        String help) {
 
     /** Value types a parameter can take. */
-    public enum Kind { INTEGER, NUMBER, CHOICE, NUMBER_OR_CHOICE, TEXT }
+    public enum Kind { INTEGER, NUMBER, CHOICE, NUMBER_OR_CHOICE, TEXT,
+        /** A file path; relative paths are resolved against the spec file's folder before the method sees them. */
+        PATH }
 
     public ParamDef {
         choices = List.copyOf(choices);
@@ -41,6 +43,10 @@ public record ParamDef(String name, Kind kind, double min, double max, List<Stri
     public static ParamDef numberOrChoice(String name, double min, double max, List<String> words, Object def,
                                           String help) {
         return new ParamDef(name, Kind.NUMBER_OR_CHOICE, min, max, words, def, help);
+    }
+
+    public static ParamDef path(String name, String help) {
+        return new ParamDef(name, Kind.PATH, 0, 0, List.of(), null, help);
     }
 
     public static ParamDef text(String name, String def, String help) {
