@@ -8,6 +8,7 @@ import java.time.Instant;
 import java.util.List;
 import java.util.concurrent.Callable;
 import org.viewgain.cohort.Subject;
+import org.viewgain.engine.ComparisonPairs;
 import org.viewgain.engine.Evaluation;
 import org.viewgain.engine.Experiment;
 import org.viewgain.engine.Progress;
@@ -54,6 +55,7 @@ final class RunCommand implements Callable<Integer> {
         PrintWriter out = cl.getOut();
         PrintWriter err = cl.getErr();
         Experiment ex = Setup.prepare(SpecLoader.load(specFile));
+        ComparisonPairs.of(ex); // names in significance.compare are checked before anything is written
         Instant start = Instant.now();
         RunFolder folder = RunFolder.create(outRoot, ex.spec().experiment(), start);
         List<String> ids = ex.data().subjects().stream().map(Subject::id).toList();

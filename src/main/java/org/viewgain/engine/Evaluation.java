@@ -15,8 +15,8 @@ public final class Evaluation {
     }
 
     /** A metric of one pipeline: mean over repeats, its spread, and n subjects per repeat. */
-    public record MetricRow(Pipeline pipeline, String metric, double estimate, double sdOverRepeats, int repeats,
-                            int n) {
+    public record MetricRow(Pipeline pipeline, String metric, double estimate, double sdOverRepeats, double ciLow,
+                            double ciHigh, String ciMethod, int repeats, int n) {
     }
 
     /** A metric of one pipeline in one outer fold (or one whole repeat when fold is -1). */
@@ -29,15 +29,23 @@ public final class Evaluation {
         Experiment ex = res.experiment();
         for (Pipeline p : ex.pipelines()) {
             List<Map<String, Double>> perRepeat = new ArrayList<>();
+            List<List<RunResults.Prediction>> predictions = new ArrayList<>();
             int n = 0;
             for (int r = 0; r < res.plan().repeats(); r++) {
                 List<RunResults.Prediction> ps = select(res, p, r, -1);
                 n = ps.size();
+                predictions.add(ps);
                 perRepeat.add(compute(ex, ps));
             }
+            Map<String, Double> estimates = new LinkedHashMap<>();
+            for (String m : ClassificationMetrics.NAMES) {
+                estimates.put(m, mean(perRepeat.stream().mapToDouble(x -> x.get(m)).toArray()));
+            }
+            Map<String, MetricIntervals.Ci> ci = MetricIntervals.of(ex, p, predictions, estimates);
             for (String m : ClassificationMetrics.NAMES) {
                 double[] v = perRepeat.stream().mapToDouble(x -> x.get(m)).toArray();
-                out.add(new MetricRow(p, m, mean(v), sd(v), v.length, n));
+                MetricIntervals.Ci c = ci.get(m);
+                out.add(new MetricRow(p, m, mean(v), sd(v), c.low(), c.high(), c.method(), v.length, n));
             }
         }
         return out;

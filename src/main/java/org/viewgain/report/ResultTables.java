@@ -40,11 +40,11 @@ public final class ResultTables {
 
     public static CsvTable metrics(List<Evaluation.MetricRow> rows) {
         CsvTable t = new CsvTable("imputer", "feature_set", "classifier", "metric", "estimate", "sd_over_repeats",
-                "repeats", "n");
+                "ci_low", "ci_high", "ci_method", "repeats", "n");
         for (Evaluation.MetricRow m : rows) {
             t.row().text(m.pipeline().imputer()).text(m.pipeline().featureSet().label()).text(m.pipeline().classifier())
-                    .text(m.metric()).number(m.estimate()).number(m.sdOverRepeats()).integer(m.repeats())
-                    .integer(m.n());
+                    .text(m.metric()).number(m.estimate()).number(m.sdOverRepeats()).number(m.ciLow())
+                    .number(m.ciHigh()).text(m.ciMethod()).integer(m.repeats()).integer(m.n());
         }
         return t;
     }

@@ -19,6 +19,11 @@ public final class RunWriter {
         folder.write("fold_metrics.csv", ResultTables.foldMetrics(Evaluation.foldMetrics(res)));
         folder.write("hyperparameters.csv", ResultTables.hyperparameters(res));
         folder.write("imputation.csv", ResultTables.imputation(res));
+        folder.write("comparisons.csv", SignificanceTables.comparisons(org.viewgain.engine.Comparisons.of(res)));
+        if (!res.permutations().isEmpty()) {
+            folder.write("permutations.csv", SignificanceTables.permutations(res.permutations()));
+            folder.write("permutation_null.csv", SignificanceTables.permutationNull(res.permutations()));
+        }
         prov.put("status", "complete");
         folder.writeText("run.json", prov.toJson());
     }

@@ -14,7 +14,7 @@ public record ExperimentSpec(String experiment, long seed, Path specFile, String
                              Specs.View source, Specs.View target, Specs.Features features,
                              List<Specs.Method> imputers, Specs.TrainingImputation imputedForTraining,
                              List<FeatureSet> featureSets, List<Specs.Method> classifiers,
-                             Specs.Validation validation, SourceMap where) {
+                             Specs.Validation validation, Specs.Significance significance, SourceMap where) {
     public ExperimentSpec {
         imputers = List.copyOf(imputers);
         featureSets = List.copyOf(featureSets);

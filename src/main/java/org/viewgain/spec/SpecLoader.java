@@ -47,7 +47,7 @@ public final class SpecLoader {
         Path base = file.toAbsolutePath().getParent();
         Section top = new Section(root, "", problems);
         top.allowOnly(Set.of("experiment", "seed", "cohort", "views", "features", "imputers", "imputed-for-training",
-                "feature-sets", "classifiers", "validation"));
+                "feature-sets", "classifiers", "validation", "significance"));
 
         String experiment = top.text("experiment", "experiment", true);
         if (experiment != null && !experiment.matches("[A-Za-z0-9][A-Za-z0-9._-]{0,79}")) {
@@ -69,6 +69,7 @@ public final class SpecLoader {
         List<FeatureSet> sets = problems.wasMisspelled("feature-sets") ? List.of() : featureSets(top, problems);
         List<Specs.Method> classifiers = methods(top, "classifiers", base, true);
         Specs.Validation validation = validation(top.section("validation", false), cohort);
+        Specs.Significance significance = significance(top.section("significance", false), sets, validation);
 
         for (int i = 0; i < sets.size(); i++) {
             FeatureSet fs = sets.get(i);
@@ -85,7 +86,7 @@ public final class SpecLoader {
         }
         problems.throwIfAny();
         return new ExperimentSpec(experiment, seed, file, text, cohort, source, target, features, imputers, training,
-                sets, classifiers, validation, parsed.where());
+                sets, classifiers, validation, significance, parsed.where());
     }
 
     private static Specs.Cohort cohort(Section s, Path base) {
@@ -284,5 +285,51 @@ public final class SpecLoader {
         int innerFolds = inner.integer("folds", 3, 2, 100);
         String tuneBy = s.choice("tune-by", TUNE_BY, "balanced-accuracy");
         return new Specs.Validation(scheme, folds, repeats, innerFolds, tuneBy);
+    }
+
+    static final List<String> ADJUST = List.of("holm", "benjamini-hochberg", "bonferroni", "none");
+
+    private static Specs.Significance significance(Section s, List<FeatureSet> sets, Specs.Validation validation) {
+        s.allowOnly(Set.of("permutations", "early-stop", "metric", "alpha", "compare", "adjust", "rope", "bootstrap",
+                "confidence"));
+        int permutations = s.integer("permutations", 0, 0, 1_000_000);
+        int earlyStop = s.integer("early-stop", 0, 0, 1_000_000);
+        if (earlyStop > 0 && permutations > 0 && earlyStop > permutations) {
+            s.problems.add(s.key("early-stop"), "h = " + earlyStop + " exceeds permutations = " + permutations);
+        }
+        String metric = s.choice("metric", TUNE_BY, validation.tuneBy());
+        double alpha = s.number("alpha", 0.05, 1e-9, 0.5);
+        List<String> defaults = new ArrayList<>();
+        if (sets.contains(FeatureSet.SOURCE_IMPUTED) && sets.contains(FeatureSet.SOURCE)) {
+            defaults.add("source+imputed vs source");
+        }
+        if (sets.contains(FeatureSet.SOURCE_IMPUTED) && sets.contains(FeatureSet.TARGET)) {
+            defaults.add("source+imputed vs target");
+        }
+        List<String> compare = s.textList("compare", defaults);
+        for (int i = 0; i < compare.size(); i++) {
+            String c = compare.get(i);
+            String[] sides = c.split("\\s+vs\\s+");
+            if (c.equals("all-pairs")) {
+                continue;
+            }
+            if (sides.length != 2) {
+                s.problems.add(s.key("compare") + "[" + i + "]", "'" + c + "': write 'A vs B' with feature sets (e.g."
+                        + " 'source+imputed vs source') or pipelines (imputer/feature-set/classifier), or 'all-pairs'");
+                continue;
+            }
+            for (String side : sides) {
+                if (!side.contains("/") && (FeatureSet.byLabel(side) == null || !sets.contains(FeatureSet.byLabel(side)))) {
+                    s.problems.add(s.key("compare") + "[" + i + "]", "'" + side + "' is not one of the feature-sets of "
+                            + "this spec (" + String.join(", ", sets.stream().map(FeatureSet::label).toList()) + ")");
+                }
+            }
+        }
+        String adjust = s.choice("adjust", ADJUST, "holm");
+        double rope = s.number("rope", 0.01, 0, 1);
+        int bootstrap = s.integer("bootstrap", 1000, 0, 1_000_000);
+        double confidence = s.number("confidence", 0.95, 0.5, 0.999);
+        return new Specs.Significance(permutations, earlyStop, metric, alpha, compare, adjust, rope, bootstrap,
+                confidence);
     }
 }

@@ -101,4 +101,24 @@ public final class Specs {
             return label;
         }
     }
+
+    /**
+     * Significance settings.
+     *
+     * @param permutations label permutations per pipeline (0: no permutation test)
+     * @param earlyStop    Besag-Clifford h: stop a pipeline once h permuted scores reached the observed one (0: never)
+     * @param metric       the statistic of the permutation test
+     * @param alpha        level used to mark pipelines and comparisons
+     * @param compare      comparisons, each {@code A vs B} (feature sets or full pipeline labels)
+     * @param adjust       multiple-testing adjustment across the comparisons of a run
+     * @param rope         half-width of the region of practical equivalence (Bayesian test), in metric units
+     * @param bootstrap    replicates of the subject-level bootstrap intervals
+     * @param confidence   level of every interval
+     */
+    public record Significance(int permutations, int earlyStop, String metric, double alpha, List<String> compare,
+                               String adjust, double rope, int bootstrap, double confidence) {
+        public Significance {
+            compare = List.copyOf(compare);
+        }
+    }
 }

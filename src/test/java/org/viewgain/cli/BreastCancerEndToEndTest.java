@@ -54,11 +54,16 @@ class BreastCancerEndToEndTest {
         assertTrue(Files.readString(run.resolve("run.json")).contains("\"status\" : \"complete\""));
         Map<String, Double> ba = new HashMap<>();
         Map<String, Integer> n = new HashMap<>();
-        for (String line : Files.readAllLines(run.resolve("metrics.csv")).subList(1, 1 + 3 * 7)) {
+        List<String> lines = Files.readAllLines(run.resolve("metrics.csv"));
+        List<String> head = List.of(lines.get(0).split(","));
+        for (String line : lines.subList(1, lines.size())) {
             String[] c = line.split(",");
-            if (c[3].equals("balanced_accuracy")) {
-                ba.put(c[1], Double.parseDouble(c[4]));
-                n.put(c[1], Integer.parseInt(c[7]));
+            if (c[head.indexOf("metric")].equals("balanced_accuracy")) {
+                ba.put(c[head.indexOf("feature_set")], Double.parseDouble(c[head.indexOf("estimate")]));
+                n.put(c[head.indexOf("feature_set")], Integer.parseInt(c[head.indexOf("n")]));
+                double lo = Double.parseDouble(c[head.indexOf("ci_low")]);
+                double hi = Double.parseDouble(c[head.indexOf("ci_high")]);
+                assertTrue(lo < ba.get(c[1]) && ba.get(c[1]) < hi, "bootstrap interval around the estimate: " + line);
             }
         }
         // random-forest balanced accuracy on the mean_* view in 0.90-0.97: common practice, no source

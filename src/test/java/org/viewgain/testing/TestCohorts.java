@@ -20,6 +20,12 @@ public final class TestCohorts {
     }
 
     public static Path synthetic(Path dir, int n, int p, int q, double effect, double missing, long seed) {
+        return synthetic(dir, n, p, q, effect, effect / 5, missing, seed);
+    }
+
+    /** As above with separate group shifts of the target and the source columns. */
+    public static Path synthetic(Path dir, int n, int p, int q, double effect, double sourceEffect, double missing,
+                                 long seed) {
         try {
             Files.createDirectories(dir);
             SplittableRandom rng = new SplittableRandom(seed);
@@ -48,7 +54,7 @@ public final class TestCohorts {
                 double[] x = new double[p];
                 src.append(id);
                 for (int j = 0; j < p; j++) {
-                    x[j] = rng.nextGaussian() + (j < 3 ? g * effect / 5 : 0);
+                    x[j] = rng.nextGaussian() + (j < 3 ? g * sourceEffect : 0);
                     src.append(',').append(String.format(Locale.ROOT, "%.6f", x[j]));
                 }
                 src.append('\n');
