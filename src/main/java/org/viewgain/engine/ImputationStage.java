@@ -1,12 +1,12 @@
 package org.viewgain.engine;
 
 import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.List;
 import org.viewgain.cohort.Rows;
 import org.viewgain.folds.FitContext;
 import org.viewgain.folds.Seeds;
 import org.viewgain.imputation.ImputationQuality;
+import org.viewgain.imputation.MeanImputer;
 import org.viewgain.imputation.ViewImputer;
 import org.viewgain.spec.Params;
 import org.viewgain.spec.Specs;
@@ -14,7 +14,9 @@ import org.viewgain.spec.Specs;
 /**
  * Fits one imputer inside one outer fold. Only outer-training subjects with an observed target are ever given to a
  * fit; group labels are never given. The grid is scored by inner cross-validated MAE; the same inner fits provide
- * the cross-fitted imputations of the training subjects.
+ * the cross-fitted imputations of the training subjects. Who trains and who is imputed in each fit is defined by
+ * {@link ImputationTasks}. Test-subject quality is scored against a {@code mean} imputer fitted on the same
+ * training subjects (skill).
  */
 final class ImputationStage {
     private final Experiment ex;
@@ -25,9 +27,6 @@ final class ImputationStage {
 
     ImputedFold run(Resolved.Imputer imp, int permutation, int repeat, int fold, int[] innerOf) {
         StudyData d = ex.data();
-        int[] train = ex.plan().train(repeat, fold);
-        int[] test = ex.plan().test(repeat, fold);
-        int[] withTarget = Arrays.stream(train).filter(d::hasTarget).toArray();
         boolean crossFit = ex.spec().imputedForTraining() == Specs.TrainingImputation.CROSS_FITTED;
         int k = ex.spec().validation().innerFolds();
         FitContext base = new FitContext(permutation, repeat, fold, FitContext.WHOLE, FitContext.Role.FINAL, 0L);
@@ -35,22 +34,25 @@ final class ImputationStage {
         double[][] out = new double[d.n()][];
         Params chosen = imp.grid().get(0);
         double innerMae = Double.NaN;
-        if (crossFit || imp.grid().size() > 1) {
+        if (ImputationTasks.runsCrossFits(ex, imp)) {
+            List<ImputationTasks.Task> tasks = new ArrayList<>(k);
+            for (int j = 0; j < k; j++) {
+                tasks.add(ImputationTasks.crossFit(ex, repeat, fold, innerOf, j));
+            }
             double best = Double.POSITIVE_INFINITY;
             double[][] bestPreds = null;
             for (Params p : imp.grid()) {
                 double[][] preds = new double[d.n()][];
                 double absSum = 0;
                 long cells = 0;
-                for (int j = 0; j < k; j++) {
-                    final int jj = j;
-                    int[] fitSet = Arrays.stream(withTarget).filter(i -> innerOf[i] != jj).toArray();
-                    int[] predSet = Arrays.stream(train).filter(i -> innerOf[i] == jj).toArray();
+                for (ImputationTasks.Task task : tasks) {
+                    int[] predSet = task.imputePositions();
                     if (predSet.length == 0) {
                         continue;
                     }
-                    FitContext ctx = base.at(j, FitContext.Role.CROSS_FIT,
-                            Seeds.derive(ex.spec().seed(), "impute", repeat, fold, j, imp.name(), p.toString()));
+                    int[] fitSet = task.trainPositions();
+                    FitContext ctx = base.at(task.inner(), FitContext.Role.CROSS_FIT, Seeds.derive(ex.spec().seed(),
+                            "impute", repeat, fold, task.inner(), imp.name(), p.toString()));
                     ViewImputer.Fitted fitted = imp.method().fit(ctx, sourceRows(fitSet), targetRows(fitSet), p);
                     double[][] got = fitted.impute(ctx, sourceRows(predSet));
                     for (int t = 0; t < predSet.length; t++) {
@@ -74,15 +76,17 @@ final class ImputationStage {
             }
             innerMae = best;
             if (crossFit) {
-                for (int i : train) {
+                for (int i : ex.plan().train(repeat, fold)) {
                     out[i] = bestPreds[i];
                 }
             }
         }
+        ImputationTasks.Task last = ImputationTasks.finalTask(ex, repeat, fold);
+        int[] withTarget = last.trainPositions();
         FitContext ctx = base.at(FitContext.WHOLE, FitContext.Role.FINAL,
                 Seeds.derive(ex.spec().seed(), "impute", repeat, fold, "final", imp.name(), chosen.toString()));
         ViewImputer.Fitted fitted = imp.method().fit(ctx, sourceRows(withTarget), targetRows(withTarget), chosen);
-        int[] toImpute = crossFit ? test : concat(test, Arrays.stream(train).filter(i -> !d.hasTarget(i)).toArray());
+        int[] toImpute = last.imputePositions();
         double[][] got = fitted.impute(ctx, sourceRows(toImpute));
         for (int t = 0; t < toImpute.length; t++) {
             out[toImpute[t]] = got[t];
@@ -92,18 +96,37 @@ final class ImputationStage {
                 out[i] = d.target().base(d.id(i));
             }
         }
-        List<ImputedFold.Quality> quality = new ArrayList<>();
-        for (int i : test) {
-            if (d.hasTarget(i)) {
-                double[] obs = d.target().base(d.id(i));
-                double[] im = out[i];
-                double strength = d.target().isGraph()
-                        ? ImputationQuality.nodeStrengthMae(obs, im, d.target().regions()) : Double.NaN;
-                quality.add(new ImputedFold.Quality(i, ImputationQuality.mae(obs, im), ImputationQuality.rmse(obs, im),
-                        ImputationQuality.pearsonR(obs, im), strength));
-            }
+        return new ImputedFold(out, chosen, innerMae, quality(ctx, withTarget, ex.plan().test(repeat, fold), out));
+    }
+
+    /** Quality rows of the test subjects with an observed target, with skill against a mean fitted alongside. */
+    private List<ImputedFold.Quality> quality(FitContext ctx, int[] withTarget, int[] test, double[][] out) {
+        StudyData d = ex.data();
+        int[] scored = java.util.Arrays.stream(test).filter(d::hasTarget).toArray();
+        List<ImputedFold.Quality> quality = new ArrayList<>(scored.length);
+        if (scored.length == 0) {
+            return quality;
         }
-        return new ImputedFold(out, chosen, innerMae, quality);
+        MeanImputer mean = new MeanImputer();
+        double[][] baseline = mean.fit(ctx, sourceRows(withTarget), targetRows(withTarget), Params.NONE)
+                .impute(ctx, sourceRows(scored));
+        for (int t = 0; t < scored.length; t++) {
+            int i = scored[t];
+            double[] obs = d.target().base(d.id(i));
+            double[] im = out[i];
+            double strength = d.target().isGraph()
+                    ? ImputationQuality.nodeStrengthMae(obs, im, d.target().regions()) : Double.NaN;
+            double mae = ImputationQuality.mae(obs, im);
+            double maeMean = ImputationQuality.mae(obs, baseline[t]);
+            double skill = maeMean > 0 ? ImputationQuality.skill(mae, maeMean) : Double.NaN;
+            double[] abs = new double[obs.length];
+            for (int c = 0; c < obs.length; c++) {
+                abs[c] = Math.abs(obs[c] - im[c]);
+            }
+            quality.add(new ImputedFold.Quality(i, mae, ImputationQuality.rmse(obs, im),
+                    ImputationQuality.pearsonR(obs, im), strength, skill, abs));
+        }
+        return quality;
     }
 
     private Rows sourceRows(int[] positions) {
@@ -126,11 +149,5 @@ final class ImputationStage {
             ids.add(d.id(positions[t]));
         }
         return new Rows(ids, x, d.target().baseNames());
-    }
-
-    private static int[] concat(int[] a, int[] b) {
-        int[] r = Arrays.copyOf(a, a.length + b.length);
-        System.arraycopy(b, 0, r, a.length, b.length);
-        return r;
     }
 }

@@ -14,7 +14,14 @@ import org.viewgain.spec.Params;
  */
 record ImputedFold(double[][] imputed, Params chosen, double innerMae, List<Quality> quality) {
 
-    /** How close one test subject's imputation came to its observed target. */
-    record Quality(int subject, double mae, double rmse, double pearsonR, double strengthMae) {
+    /**
+     * How close one test subject's imputation came to its observed target.
+     *
+     * @param skill    {@code 1 - mae / mae_mean}, with mae_mean from a {@code mean} imputer fitted on the same
+     *                 training subjects; NaN when mae_mean is 0
+     * @param absError absolute error of each target feature (base-vector order)
+     */
+    record Quality(int subject, double mae, double rmse, double pearsonR, double strengthMae, double skill,
+                   double[] absError) {
     }
 }

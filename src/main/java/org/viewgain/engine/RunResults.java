@@ -42,8 +42,15 @@ public record RunResults(Experiment experiment, FoldPlan plan, List<Prediction> 
                          String params, double innerScore, int gridSize) {
     }
 
-    /** Imputation quality of one outer-test subject with an observed target. */
+    /**
+     * Imputation quality of one outer-test subject with an observed target.
+     *
+     * @param skill    {@code 1 - mae / mae_mean} against a {@code mean} imputer fitted on the same training subjects
+     *                 (NaN when not computed)
+     * @param absError absolute error of each target feature in base-vector order, or null when not recorded; read
+     *                 only
+     */
     public record ImputationRow(String imputer, int repeat, int fold, int subject, double mae, double rmse,
-                                double pearsonR, double strengthMae) {
+                                double pearsonR, double strengthMae, double skill, double[] absError) {
     }
 }

@@ -185,7 +185,7 @@ public final class Runner {
                         fi.chosen().toString(), fi.innerMae(), imp.grid().size()));
                 for (ImputedFold.Quality q : fi.quality()) {
                     quality.add(new RunResults.ImputationRow(imp.name(), rf[0], rf[1], q.subject(), q.mae(), q.rmse(),
-                            q.pearsonR(), q.strengthMae()));
+                            q.pearsonR(), q.strengthMae(), q.skill(), q.absError()));
                 }
             }
         }

@@ -16,6 +16,7 @@ public final class ImputerRegistry {
         METHODS.put(RidgeImputer.METHOD, RidgeImputer::new);
         METHODS.put(PlsImputer.METHOD, PlsImputer::new);
         METHODS.put(MultiKernelNeighboursImputer.METHOD, MultiKernelNeighboursImputer::new);
+        METHODS.put(ExternalImputer.METHOD, ExternalImputer::new);
     }
 
     private ImputerRegistry() {

@@ -70,14 +70,112 @@ public final class ResultTables {
         return t;
     }
 
+    /** Imputation quality per imputer, repeat, fold and outer-test subject with an observed target. */
     public static CsvTable imputation(RunResults res) {
         CsvTable t = new CsvTable("imputer", "repeat", "fold", "subject", "mae", "rmse", "pearson_r",
-                "strength_mae");
+                "strength_mae", "skill");
         for (RunResults.ImputationRow q : res.imputation()) {
             t.row().text(q.imputer()).integer(q.repeat() + 1).integer(q.fold() + 1)
                     .text(res.experiment().data().id(q.subject())).number(q.mae()).number(q.rmse())
-                    .number(q.pearsonR()).number(q.strengthMae());
+                    .number(q.pearsonR()).number(q.strengthMae()).number(q.skill());
         }
         return t;
+    }
+
+    /**
+     * Per imputer and target feature (base-vector order, e.g. {@code R1~R2}): the mean absolute error over all
+     * outer-test subjects with an observed target, pooled over folds and repeats.
+     */
+    public static CsvTable imputationEdges(RunResults res) {
+        CsvTable t = new CsvTable("imputer", "feature", "mae");
+        var target = res.experiment().data().target();
+        if (target == null) {
+            return t;
+        }
+        List<String> names = target.baseNames();
+        for (String imputer : imputerNames(res)) {
+            double[] sum = new double[names.size()];
+            long n = 0;
+            for (RunResults.ImputationRow q : res.imputation()) {
+                if (q.imputer().equals(imputer) && q.absError() != null) {
+                    for (int c = 0; c < sum.length; c++) {
+                        sum[c] += q.absError()[c];
+                    }
+                    n++;
+                }
+            }
+            for (int c = 0; c < sum.length && n > 0; c++) {
+                t.row().text(imputer).text(names.get(c)).number(sum[c] / n);
+            }
+        }
+        return t;
+    }
+
+    /**
+     * Per imputer: the number of subject-fold rows and of outer folds, the mean of each quality measure over the
+     * subject-fold rows (non-finite values, e.g. an undefined correlation, left out), and {@code mae_sd}, the standard
+     * deviation over outer folds and repeats of the fold's mean MAE.
+     */
+    public static CsvTable imputationSummary(RunResults res) {
+        CsvTable t = new CsvTable("imputer", "n_subject_folds", "n_folds", "mae_mean", "mae_sd", "rmse_mean",
+                "pearson_r_mean", "strength_mae_mean", "skill_mean");
+        for (String imputer : imputerNames(res)) {
+            List<RunResults.ImputationRow> rows = res.imputation().stream()
+                    .filter(q -> q.imputer().equals(imputer)).toList();
+            if (rows.isEmpty()) {
+                continue;
+            }
+            java.util.Map<Long, double[]> perFold = new java.util.LinkedHashMap<>();
+            for (RunResults.ImputationRow q : rows) {
+                double[] acc = perFold.computeIfAbsent(((long) q.repeat() << 32) | q.fold(), k -> new double[2]);
+                acc[0] += q.mae();
+                acc[1]++;
+            }
+            double[] foldMae = perFold.values().stream().mapToDouble(a -> a[0] / a[1]).toArray();
+            t.row().text(imputer).integer(rows.size()).integer(foldMae.length)
+                    .number(finiteMean(rows, RunResults.ImputationRow::mae)).number(sd(foldMae))
+                    .number(finiteMean(rows, RunResults.ImputationRow::rmse))
+                    .number(finiteMean(rows, RunResults.ImputationRow::pearsonR))
+                    .number(finiteMean(rows, RunResults.ImputationRow::strengthMae))
+                    .number(finiteMean(rows, RunResults.ImputationRow::skill));
+        }
+        return t;
+    }
+
+    /** Imputer names in spec order. */
+    private static List<String> imputerNames(RunResults res) {
+        return res.experiment().imputers().stream().map(org.viewgain.engine.Resolved.Imputer::name).toList();
+    }
+
+    /** Mean of the finite values; NaN when there are none. */
+    private static double finiteMean(List<RunResults.ImputationRow> rows,
+                                     java.util.function.ToDoubleFunction<RunResults.ImputationRow> f) {
+        double s = 0;
+        int n = 0;
+        for (RunResults.ImputationRow q : rows) {
+            double v = f.applyAsDouble(q);
+            if (Double.isFinite(v)) {
+                s += v;
+                n++;
+            }
+        }
+        return n > 0 ? s / n : Double.NaN;
+    }
+
+    /** Sample standard deviation (n - 1); NaN for fewer than two values. */
+    private static double sd(double[] v) {
+        if (v.length < 2) {
+            return Double.NaN;
+        }
+        double m = 0;
+        for (double x : v) {
+            m += x;
+        }
+        m /= v.length;
+        double ss = 0;
+        for (double x : v) {
+            ss += (x - m) * (x - m);
+        }
+        return Math.sqrt(ss / (v.length - 1));
     }
 }

@@ -19,6 +19,8 @@ public final class RunWriter {
         folder.write("fold_metrics.csv", ResultTables.foldMetrics(Evaluation.foldMetrics(res)));
         folder.write("hyperparameters.csv", ResultTables.hyperparameters(res));
         folder.write("imputation.csv", ResultTables.imputation(res));
+        folder.write("imputation_edges.csv", ResultTables.imputationEdges(res));
+        folder.write("imputation_summary.csv", ResultTables.imputationSummary(res));
         folder.write("comparisons.csv", SignificanceTables.comparisons(org.viewgain.engine.Comparisons.of(res)));
         if (!res.permutations().isEmpty()) {
             folder.write("permutations.csv", SignificanceTables.permutations(res.permutations()));
