@@ -14,7 +14,7 @@ import java.util.Set;
  * the mean estimates of metrics.csv are set side by side and the missing paired tests are named.
  */
 final class AnswerSection {
-    static final List<String> HEAD = List.of("comparison", "test", "metric", "A", "B", "difference", "interval", "p",
+    static final List<String> HEAD = List.of("test", "metric", "A", "B", "difference", "interval", "p",
             "adjusted p", "P(A better)", "P(practically equal)", "P(B better)");
 
     private AnswerSection() {
@@ -99,18 +99,17 @@ final class AnswerSection {
         List<String> parts = new ArrayList<>();
         for (CsvRows.Row r : new CsvRows.Row[] {bal, auc}) {
             if (r != null) {
-                parts.add(Html.esc(String.format(Locale.ROOT, "%s %s vs %s, difference %s%s, %s p = %s%s",
+                boolean adjusted = Double.isFinite(r.d("p_adjusted"));
+                parts.add(Html.esc(String.format(Locale.ROOT, "%s %s vs %s (%s%s; %s p = %s)",
                         Names.metric(r.s("metric")), Html.f3(r.d("estimate_a")), Html.f3(r.d("estimate_b")),
-                        Html.signed3(r.d("difference")), interval(r), Names.test(r.s("test")), Html.p(r.d("p_value")),
-                        Double.isFinite(r.d("p_adjusted")) ? " (" + r.s("adjust_method") + "-adjusted "
-                                + Html.p(r.d("p_adjusted")) + ")" : "")));
+                        Html.signed3(r.d("difference")), interval(r), adjusted ? "adjusted" : "",
+                        Html.p(adjusted ? r.d("p_adjusted") : r.d("p_value"))).replace(";  p", "; p")));
             }
         }
         if (bayes != null) {
-            parts.add(Html.esc(String.format(Locale.ROOT, "probability that A is better %s, practically equal %s, "
-                    + "B better %s (%s, region of practical equivalence \u00b1%s)", Html.f3(bayes.d("prob_a_better")),
-                    Html.f3(bayes.d("prob_equivalent")), Html.f3(bayes.d("prob_b_better")),
-                    Names.test(bayes.s("test")), bayes.s("rope").isEmpty() ? "?" : bayes.s("rope"))));
+            parts.add(Html.esc(String.format(Locale.ROOT, "probability that A is better %s, practically equal %s "
+                    + "(Bayesian, \u00b1%s)", Html.f3(bayes.d("prob_a_better")), Html.f3(bayes.d("prob_equivalent")),
+                    bayes.s("rope").isEmpty() ? "?" : bayes.s("rope"))));
         }
         s.append(parts.isEmpty() ? "no balanced-accuracy or AUC test in comparisons.csv" : String.join("; ", parts));
         s.append('.');
@@ -134,7 +133,7 @@ final class AnswerSection {
         }
         double p = Double.isFinite(r.d("p_adjusted")) ? r.d("p_adjusted") : r.d("p_value");
         double diff = r.d("difference");
-        String level = String.format(Locale.ROOT, "%s", Html.p(alpha));
+        String level = CsvTable.formatNumber(alpha);
         if (p <= alpha && diff > 0) {
             return nameA + " is better than " + nameB + " (p \u2264 " + level + ").";
         }
@@ -162,15 +161,21 @@ final class AnswerSection {
         StringBuilder b = new StringBuilder("<table class=\"answer\"><thead><tr>");
         HEAD.forEach(h -> b.append("<th>").append(Html.esc(h)).append("</th>"));
         b.append("</tr></thead><tbody>\n");
+        String pair = null;
         for (CsvRows.Row r : rows) {
+            String thisPair = r.s("comparison") + "#" + a(r) + "#" + bKey(r);
+            if (!thisPair.equals(pair)) {
+                pair = thisPair;
+                b.append("<tr class=\"pair\"><th colspan=\"").append(HEAD.size()).append("\">A = ")
+                        .append(Html.esc(Names.pipeline(r.s("imputer_a"), r.s("feature_set_a"), r.s("classifier_a"))))
+                        .append(chance.badge(a(r))).append(" &nbsp; B = ")
+                        .append(Html.esc(Names.pipeline(r.s("imputer_b"), r.s("feature_set_b"), r.s("classifier_b"))))
+                        .append(chance.badge(bKey(r))).append("</th></tr>\n");
+            }
             b.append("<tr data-comparison=\"").append(Html.esc(r.s("comparison"))).append("\" data-a=\"")
                     .append(Html.esc(a(r))).append("\" data-b=\"").append(Html.esc(bKey(r))).append("\" data-test=\"")
                     .append(Html.esc(r.s("test"))).append("\" data-metric=\"").append(Html.esc(r.s("metric")))
                     .append("\">");
-            b.append("<td>").append(Html.esc(Names.pipeline(r.s("imputer_a"), r.s("feature_set_a"),
-                    r.s("classifier_a")))).append(chance.badge(a(r))).append("<br>vs ")
-                    .append(Html.esc(Names.pipeline(r.s("imputer_b"), r.s("feature_set_b"), r.s("classifier_b"))))
-                    .append(chance.badge(bKey(r))).append("</td>");
             b.append("<td>").append(Html.esc(Names.test(r.s("test")))).append(r.s("n").isEmpty() ? ""
                     : "<br><span class=\"small\">n = " + Html.esc(r.s("n")) + "</span>").append("</td>");
             b.append("<td>").append(Html.esc(Names.metric(r.s("metric")))).append("</td>");

@@ -22,7 +22,7 @@ final class FlowTable {
                 rows.add(List.of(Html.esc(r.s("feature_set")), Html.esc(r.s("imputer")), Html.esc(r.s("group")),
                         Html.esc(r.s("included")), Html.esc(r.s("excluded")), Html.esc(d.redact.text(r.s("reason")))));
             }
-            return Html.table("flow", HEAD, rows);
+            return Html.table("flowtable", HEAD, rows);
         }
         StringBuilder b = new StringBuilder(Html.notComputed("the cohort flow table", "cohort_flow.csv"));
         if (d.predictions == null) {
@@ -49,6 +49,6 @@ final class FlowTable {
         });
         b.append("<p class=\"small\">Counts below are derived from the subjects with a prediction in repeat ")
                 .append(Html.esc(firstRepeat)).append(" of predictions.csv.</p>\n");
-        return b.append(Html.table("flow", HEAD, rows)).toString();
+        return b.append(Html.table("flowtable", HEAD, rows)).toString();
     }
 }

@@ -37,7 +37,15 @@ final class MetricChart {
                 + (ci ? "their intervals from metrics.csv" : "\u00b1 one standard deviation over repeats (not a "
                 + "confidence interval; this run wrote none)") + "; the grey line is chance (0.5).";
         int height = 90 + 30 * by.size();
-        return Charts.figure(() -> chart(by, ci), 760, height, caption, d.redact);
+        return Charts.figure(() -> chart(by, ci), 860, height, caption, d.redact);
+    }
+
+    private static double minLow(YIntervalSeries s) {
+        double m = Double.POSITIVE_INFINITY;
+        for (int i = 0; i < s.getItemCount(); i++) {
+            m = Math.min(m, s.getYLowValue(i));
+        }
+        return Double.isFinite(m) ? m : 0.4;
     }
 
     private static JFreeChart chart(Map<String, Map<String, CsvRows.Row>> by, boolean ci) {
@@ -67,8 +75,10 @@ final class MetricChart {
         SymbolAxis pipelines = new SymbolAxis(null, labels.toArray(new String[0]));
         pipelines.setInverted(true);
         pipelines.setGridBandsVisible(false);
-        NumberAxis value = new NumberAxis("value");
-        value.setRange(0.0, 1.0);
+        NumberAxis value = new NumberAxis("balanced accuracy, AUC");
+        double low = Math.min(series[0].getItemCount() > 0 ? minLow(series[0]) : 0.4,
+                series[1].getItemCount() > 0 ? minLow(series[1]) : 0.4);
+        value.setRange(Math.max(0, Math.min(0.4, Math.floor(10 * (low - 0.02)) / 10)), 1.0);
         XYErrorRenderer renderer = new XYErrorRenderer();
         renderer.setDrawXError(false);
         renderer.setDrawYError(true);

@@ -37,6 +37,8 @@ final class MetricPairs {
                     + "are in the charts below.</p>\n");
             return;
         }
+        b.append("<p><strong>Paired tests were not computed in this run, so the differences below are differences "
+                + "of mean estimates, with no claim that they are real.</strong></p>\n");
         for (String c : classifiers) {
             List<String[]> pairs = new ArrayList<>();
             for (String imp : imputed) {
@@ -54,10 +56,16 @@ final class MetricPairs {
             b.append("<div class=\"classifier\" id=\"answer-").append(Html.esc(AnswerSection.slug(c)))
                     .append("\"><h3>Classifier ").append(Html.esc(c)).append("</h3>\n<ul class=\"verdicts\">\n");
             for (String[] p : pairs) {
-                b.append("<li>").append(sentence(byKey, p)).append(' ').append(chance.mark(p[0])).append("</li>\n");
+                if (p[1].equals(Names.key("none", "source", c))) {
+                    b.append("<li>").append(sentence(byKey, p)).append(' ').append(chance.mark(p[0])).append("</li>\n");
+                }
             }
             b.append("</ul>\n").append(table(byKey, pairs, chance)).append("</div>\n");
         }
+        b.append("<p class=\"small\">Intervals are those of metrics.csv (method named beside them); where a run gave "
+                + "none, the standard deviation over repeats is shown instead, which is not a confidence interval. "
+                + "Pipelines with the observed target use only subjects whose target was observed, so they are not "
+                + "paired with pipelines on all subjects.</p>\n");
     }
 
     private static String name(CsvRows.Row r) {
@@ -65,78 +73,66 @@ final class MetricPairs {
     }
 
     private static String sentence(Map<String, CsvRows.Row> byKey, String[] p) {
-        StringBuilder s = new StringBuilder();
         CsvRows.Row a0 = byKey.get(p[0] + "|balanced_accuracy");
         CsvRows.Row b0 = byKey.get(p[1] + "|balanced_accuracy");
-        s.append("<strong>No paired test was computed; no claim of a difference.</strong> ")
-                .append(Html.esc(name(a0) + " against " + name(b0) + ": "));
         List<String> parts = new ArrayList<>();
         for (String m : METRICS) {
             CsvRows.Row a = byKey.get(p[0] + "|" + m);
             CsvRows.Row b = byKey.get(p[1] + "|" + m);
             if (a != null && b != null) {
-                parts.add(Names.metric(m) + " " + Html.f3(a.d("estimate")) + " vs " + Html.f3(b.d("estimate"))
-                        + " (difference of means " + Html.signed3(a.d("estimate") - b.d("estimate")) + ")");
+                parts.add(Names.metric(m) + " " + Html.f3(a.d("estimate")) + " vs " + Html.f3(b.d("estimate")) + " ("
+                        + Html.signed3(a.d("estimate") - b.d("estimate")) + ")");
             }
         }
-        s.append(Html.esc(String.join("; ", parts))).append('.');
-        if (!a0.s("n").equals(b0.s("n"))) {
-            s.append(Html.esc(" The two were evaluated on different subjects (n = " + a0.s("n") + " and "
-                    + b0.s("n") + "; only subjects with an observed target enter target pipelines), so they are "
-                    + "not paired."));
-        }
-        return s.toString();
+        return "<strong>" + Html.esc(name(a0)) + "</strong> against " + Html.esc(name(b0)) + ": "
+                + Html.esc(String.join("; ", parts)) + ".";
     }
 
     private static String table(Map<String, CsvRows.Row> byKey, List<String[]> pairs, Chance chance) {
-        StringBuilder b = new StringBuilder("<table class=\"answer\"><thead><tr>");
-        for (String h : List.of("A", "B", "metric", "A estimate", "B estimate", "difference of means", "A interval",
-                "B interval")) {
+        StringBuilder b = new StringBuilder("<table class=\"answer pairs\"><thead><tr>");
+        for (String h : List.of("A", "B", "balanced accuracy A", "balanced accuracy B", "difference", "AUC A",
+                "AUC B", "difference")) {
             b.append("<th>").append(Html.esc(h)).append("</th>");
         }
         b.append("</tr></thead><tbody>\n");
         for (String[] p : pairs) {
+            CsvRows.Row a0 = byKey.get(p[0] + "|balanced_accuracy");
+            CsvRows.Row b0 = byKey.get(p[1] + "|balanced_accuracy");
+            b.append("<tr data-a=\"").append(Html.esc(p[0])).append("\" data-b=\"").append(Html.esc(p[1]))
+                    .append("\">");
+            b.append("<td>").append(Html.esc(name(a0))).append(chance.badge(p[0])).append("<br><span class=\"small\">n = ")
+                    .append(Html.esc(a0.s("n"))).append("</span></td>");
+            b.append("<td>").append(Html.esc(name(b0))).append(chance.badge(p[1])).append("<br><span class=\"small\">n = ")
+                    .append(Html.esc(b0.s("n"))).append("</span></td>");
             for (String m : METRICS) {
                 CsvRows.Row a = byKey.get(p[0] + "|" + m);
                 CsvRows.Row o = byKey.get(p[1] + "|" + m);
                 if (a == null || o == null) {
+                    b.append("<td>\u2013</td><td>\u2013</td><td>\u2013</td>");
                     continue;
                 }
-                b.append("<tr data-a=\"").append(Html.esc(p[0])).append("\" data-b=\"").append(Html.esc(p[1]))
-                        .append("\" data-metric=\"").append(Html.esc(m)).append("\">");
-                b.append("<td>").append(Html.esc(name(a))).append(chance.badge(p[0])).append("<br><span class=\"small\">n = ")
-                        .append(Html.esc(a.s("n"))).append("</span></td>");
-                b.append("<td>").append(Html.esc(name(o))).append(chance.badge(p[1])).append("<br><span class=\"small\">n = ")
-                        .append(Html.esc(o.s("n"))).append("</span></td>");
-                b.append("<td>").append(Html.esc(Names.metric(m))).append("</td>");
-                b.append("<td>").append(Html.num("estimate_a", a.s("estimate"), Html.f3(a.d("estimate"))))
-                        .append("</td>");
-                b.append("<td>").append(Html.num("estimate_b", o.s("estimate"), Html.f3(o.d("estimate"))))
-                        .append("</td>");
+                b.append("<td>").append(Html.num(m + ".estimate_a", a.s("estimate"), Html.f3(a.d("estimate"))))
+                        .append("<br>").append(interval(a, m + ".", "_a")).append("</td>");
+                b.append("<td>").append(Html.num(m + ".estimate_b", o.s("estimate"), Html.f3(o.d("estimate"))))
+                        .append("<br>").append(interval(o, m + ".", "_b")).append("</td>");
                 b.append("<td>").append(Html.esc(Html.signed3(a.d("estimate") - o.d("estimate")))).append("</td>");
-                b.append("<td>").append(interval(a, "_a")).append("</td><td>").append(interval(o, "_b"))
-                        .append("</td></tr>\n");
             }
+            b.append("</tr>\n");
         }
-        b.append("</tbody></table>\n");
-        b.append("<p class=\"small\">Intervals are those of metrics.csv (method named beside them); where a run gave "
-                + "none, the standard deviation over repeats is shown instead, which is not a confidence "
-                + "interval.</p>\n");
-        return b.toString();
+        return b.append("</tbody></table>\n").toString();
     }
 
     /** The metric's interval from metrics.csv, or its spread over repeats. */
-    static String interval(CsvRows.Row r, String suffix) {
+    static String interval(CsvRows.Row r, String prefix, String suffix) {
         if (Double.isFinite(r.d("ci_low")) && Double.isFinite(r.d("ci_high"))) {
-            return Html.num("ci_low" + suffix, r.s("ci_low"), Html.f3(r.d("ci_low"))) + " to "
-                    + Html.num("ci_high" + suffix, r.s("ci_high"), Html.f3(r.d("ci_high")))
-                    + (r.s("ci_method").isEmpty() ? "" : "<br><span class=\"small\">" + Html.esc(r.s("ci_method"))
-                            + "</span>");
+            return "<span class=\"small\">" + Html.num(prefix + "ci_low" + suffix, r.s("ci_low"), Html.f3(r.d("ci_low")))
+                    + " to " + Html.num(prefix + "ci_high" + suffix, r.s("ci_high"), Html.f3(r.d("ci_high")))
+                    + (r.s("ci_method").isEmpty() ? "" : " " + Html.esc(r.s("ci_method"))) + "</span>";
         }
         if (Double.isFinite(r.d("sd_over_repeats"))) {
-            return "\u00b1 " + Html.num("sd_over_repeats" + suffix, r.s("sd_over_repeats"),
-                    Html.f3(r.d("sd_over_repeats"))) + "<br><span class=\"small\">SD over repeats</span>";
+            return "<span class=\"small\">\u00b1 " + Html.num(prefix + "sd_over_repeats" + suffix,
+                    r.s("sd_over_repeats"), Html.f3(r.d("sd_over_repeats"))) + " SD</span>";
         }
-        return "\u2013";
+        return "";
     }
 }

@@ -34,15 +34,16 @@ final class Style {
             th, td { border-bottom: 1px solid var(--line); padding: .3rem .55rem; text-align: left; vertical-align: top; }
             thead th { background: var(--band); border-bottom: 2px solid #b8c4cd; font-weight: 600; }
             td .num, td.num { font-variant-numeric: tabular-nums; }
-            table.answer td:nth-child(n+4) { text-align: right; white-space: nowrap; }
+            table.answer td:nth-child(n+3) { text-align: right; white-space: nowrap; }
+            table.answer tr.pair th { background: #fff; font-weight: 600; padding-top: .7rem; border-bottom: 1px solid #b8c4cd; }
             table.keyvalue th { width: 11rem; background: none; font-weight: 600; }
             pre.spec { background: var(--band); border: 1px solid var(--line); padding: .8rem; font-size: .8rem;
                        overflow-x: auto; white-space: pre-wrap; }
             code { font-size: .78rem; word-break: break-all; }
-            .flow { display: flex; align-items: stretch; gap: .5rem; margin: .6rem 0 1rem; flex-wrap: wrap; }
-            .flow .box { border: 1px solid var(--line); border-top: 4px solid var(--teal); background: #fff;
+            div.flow { display: flex; align-items: stretch; gap: .5rem; margin: .6rem 0 1rem; flex-wrap: wrap; }
+            div.flow .box { border: 1px solid var(--line); border-top: 4px solid var(--teal); background: #fff;
                          padding: .5rem .8rem; max-width: 20rem; }
-            .flow .arrow { align-self: center; font-size: 1.4rem; color: var(--muted); }
+            div.flow .arrow { align-self: center; font-size: 1.4rem; color: var(--muted); }
             ul.checks li.ok { color: #1c5d3a; }
             ul.checks li.warn { color: var(--warn); background: var(--warnbg); padding: .15rem .4rem; margin: .2rem 0;
                                 list-style: square; }
@@ -65,7 +66,7 @@ final class Style {
               main, footer { max-width: none; padding: 0; }
               section { break-inside: auto; }
               h2, h3 { break-after: avoid; }
-              figure, table.answer, .flow, ul.verdicts li { break-inside: avoid; }
+              figure, table.answer, div.flow, ul.verdicts li { break-inside: avoid; }
               figure img { max-width: 100%; }
               details::details-content { content-visibility: visible; display: contents; }
               a { color: inherit; text-decoration: none; }
