@@ -51,7 +51,8 @@ final class AnswerSection {
             }
             b.append("<div class=\"classifier\" id=\"answer-").append(Html.esc(slug(c))).append("\"><h3>Classifier ")
                     .append(Html.esc(c)).append("</h3>\n<ul class=\"verdicts\">\n");
-            pairs(rows).forEach((pair, pr) -> b.append("<li>").append(sentence(pr, d.alpha(), chance)).append("</li>\n"));
+            pairs(rows).forEach((pair, pr) -> b.append("<li>").append(sentence(pr, d.alpha(), chance))
+                    .append("</li>\n"));
             b.append("</ul>\n").append(table(rows, chance));
             b.append("</div>\n");
         }

@@ -56,7 +56,8 @@ final class Chance {
         List<List<String>> rows = new ArrayList<>();
         for (CsvRows.Row r : d.permutations.rows()) {
             rows.add(List.of(Html.esc(Names.pipeline(r.s("imputer"), r.s("feature_set"), r.s("classifier"))),
-                    Html.esc(Names.metric(r.s("metric"))), Html.num("observed", r.s("observed"), Html.f3(r.d("observed"))),
+                    Html.esc(Names.metric(r.s("metric"))),
+                    Html.num("observed", r.s("observed"), Html.f3(r.d("observed"))),
                     Html.esc(r.s("permutations_run")), Html.esc(r.s("exceedances")),
                     Html.num("p_value", r.s("p_value"), Html.p(r.d("p_value"))),
                     Html.esc(r.s("stopped_early")), Html.esc(r.s("exchangeability")),

@@ -59,7 +59,8 @@ final class CohortSection {
     private static String flow(int n, Map<String, int[]> groups, boolean targets) {
         int seen = groups.values().stream().mapToInt(c -> c[1]).sum();
         StringBuilder b = new StringBuilder("<div class=\"flow\">");
-        b.append("<div class=\"box\"><b>").append(n).append("</b> subjects with a source view<br><span class=\"small\">")
+        b.append("<div class=\"box\"><b>").append(n)
+                .append("</b> subjects with a source view<br><span class=\"small\">")
                 .append(Html.esc(perGroup(groups, 0))).append("</span></div>");
         if (targets) {
             b.append("<div class=\"arrow\">\u2192</div><div class=\"box\"><b>").append(seen)

@@ -100,9 +100,11 @@ final class MetricPairs {
             CsvRows.Row b0 = byKey.get(p[1] + "|balanced_accuracy");
             b.append("<tr data-a=\"").append(Html.esc(p[0])).append("\" data-b=\"").append(Html.esc(p[1]))
                     .append("\">");
-            b.append("<td>").append(Html.esc(name(a0))).append(chance.badge(p[0])).append("<br><span class=\"small\">n = ")
+            b.append("<td>").append(Html.esc(name(a0))).append(chance.badge(p[0]))
+                    .append("<br><span class=\"small\">n = ")
                     .append(Html.esc(a0.s("n"))).append("</span></td>");
-            b.append("<td>").append(Html.esc(name(b0))).append(chance.badge(p[1])).append("<br><span class=\"small\">n = ")
+            b.append("<td>").append(Html.esc(name(b0))).append(chance.badge(p[1]))
+                    .append("<br><span class=\"small\">n = ")
                     .append(Html.esc(b0.s("n"))).append("</span></td>");
             for (String m : METRICS) {
                 CsvRows.Row a = byKey.get(p[0] + "|" + m);
@@ -125,7 +127,8 @@ final class MetricPairs {
     /** The metric's interval from metrics.csv, or its spread over repeats. */
     static String interval(CsvRows.Row r, String prefix, String suffix) {
         if (Double.isFinite(r.d("ci_low")) && Double.isFinite(r.d("ci_high"))) {
-            return "<span class=\"small\">" + Html.num(prefix + "ci_low" + suffix, r.s("ci_low"), Html.f3(r.d("ci_low")))
+            return "<span class=\"small\">"
+                    + Html.num(prefix + "ci_low" + suffix, r.s("ci_low"), Html.f3(r.d("ci_low")))
                     + " to " + Html.num(prefix + "ci_high" + suffix, r.s("ci_high"), Html.f3(r.d("ci_high")))
                     + (r.s("ci_method").isEmpty() ? "" : " " + Html.esc(r.s("ci_method"))) + "</span>";
         }

@@ -15,9 +15,11 @@ final class Style {
             header.top { background: var(--ink); color: #fff; padding: 1.4rem 2rem 1.1rem; }
             header.top h1 { margin: 0 0 .2rem; font-size: 1.55rem; font-weight: 600; letter-spacing: .01em; }
             header.top .meta { color: #c9d3db; font-size: .88rem; }
-            .ruo { background: var(--amber); color: #1d1400; padding: .35rem 2rem; font-size: .88rem; font-weight: 600; }
+            .ruo { background: var(--amber); color: #1d1400; padding: .35rem 2rem; font-size: .88rem;
+                   font-weight: 600; }
             .status-bad { background: #b5443a; color: #fff; padding: .5rem 2rem; font-weight: 600; }
-            nav.toc { padding: .6rem 2rem; border-bottom: 1px solid var(--line); font-size: .9rem; background: var(--band); }
+            nav.toc { padding: .6rem 2rem; border-bottom: 1px solid var(--line); font-size: .9rem;
+                      background: var(--band); }
             nav.toc a { color: var(--teal); margin-right: 1.2rem; text-decoration: none; }
             main { max-width: 1120px; margin: 0 auto; padding: .5rem 2rem 2rem; }
             section { padding-top: .6rem; border-bottom: 1px solid var(--line); padding-bottom: 1rem; }
@@ -25,17 +27,20 @@ final class Style {
             h3 { font-size: 1.05rem; margin: 1.1rem 0 .45rem; }
             p.lead { font-size: 1.02rem; }
             .small { font-size: .8rem; color: var(--muted); }
-            p.absent { background: var(--band); border-left: 4px solid #9aa5af; padding: .45rem .8rem; color: var(--muted); }
+            p.absent { background: var(--band); border-left: 4px solid #9aa5af; padding: .45rem .8rem;
+                       color: var(--muted); }
             ul.verdicts { padding-left: 1.1rem; }
             ul.verdicts li { margin: .35rem 0; }
             .badge { display: inline-block; background: var(--okbg); color: #1c5d3a; border: 1px solid #b9dcc8;
                      border-radius: 3px; padding: 0 .35rem; font-size: .75rem; white-space: nowrap; }
             table { border-collapse: collapse; margin: .4rem 0 .9rem; font-size: .86rem; }
-            th, td { border-bottom: 1px solid var(--line); padding: .3rem .55rem; text-align: left; vertical-align: top; }
+            th, td { border-bottom: 1px solid var(--line); padding: .3rem .55rem; text-align: left;
+                     vertical-align: top; }
             thead th { background: var(--band); border-bottom: 2px solid #b8c4cd; font-weight: 600; }
             td .num, td.num { font-variant-numeric: tabular-nums; }
             table.answer td:nth-child(n+3) { text-align: right; white-space: nowrap; }
-            table.answer tr.pair th { background: #fff; font-weight: 600; padding-top: .7rem; border-bottom: 1px solid #b8c4cd; }
+            table.answer tr.pair th { background: #fff; font-weight: 600; padding-top: .7rem;
+                                      border-bottom: 1px solid #b8c4cd; }
             table.keyvalue th { width: 11rem; background: none; font-weight: 600; }
             pre.spec { background: var(--band); border: 1px solid var(--line); padding: .8rem; font-size: .8rem;
                        overflow-x: auto; white-space: pre-wrap; }
@@ -55,7 +60,8 @@ final class Style {
             .grid figure { flex: 0 1 auto; }
             details { margin: .4rem 0 .8rem; }
             summary { cursor: pointer; color: var(--teal); }
-            footer { max-width: 1120px; margin: 0 auto; padding: 1rem 2rem 2rem; font-size: .8rem; color: var(--muted); }
+            footer { max-width: 1120px; margin: 0 auto; padding: 1rem 2rem 2rem; font-size: .8rem;
+                     color: var(--muted); }
             @media print {
               @page { margin: 14mm 12mm; }
               html { font-size: 10.5pt; }

@@ -14,8 +14,8 @@ class CurvesTest {
     @Test
     void givenTheFourPointExample_whenRocComputed_thenPointsAndAreaMatchThePublishedOnes() {
         // scikit-learn documentation, sklearn.metrics.roc_curve example (from memory; checked by hand):
-        // y = [1, 1, 2, 2] with 2 positive, scores [0.1, 0.4, 0.35, 0.8] -> fpr [0, 0, .5, .5, 1], tpr [0, .5, .5, 1, 1],
-        // roc_auc_score 0.75. Exact to 1e-12.
+        // y = [1, 1, 2, 2] with 2 positive, scores [0.1, 0.4, 0.35, 0.8] -> fpr [0, 0, .5, .5, 1],
+        // tpr [0, .5, .5, 1, 1], roc_auc_score 0.75. Exact to 1e-12.
         double[][] c = Curves.roc(new double[] {0.1, 0.4, 0.35, 0.8}, new boolean[] {false, false, true, true});
         assertArrayEquals(new double[] {0, 0, 0.5, 0.5, 1}, c[0], 1e-12);
         assertArrayEquals(new double[] {0, 0.5, 0.5, 1, 1}, c[1], 1e-12);

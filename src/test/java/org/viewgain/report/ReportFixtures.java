@@ -93,9 +93,9 @@ final class ReportFixtures {
                 double a = estimate(m, "ridge", "source+imputed", c, t[1]);
                 double s = estimate(m, "none", "source", c, t[1]);
                 double p = k == 0 ? 0.00042 : 0.0371 * (k + 1);
-                String pre = String.format(Locale.ROOT, "source+imputed vs source,ridge,source+imputed,%s,none,source,%s,40,"
-                        + "%s,%s,%s,%s,%s,", c, c, t[0], t[1], CsvTable.formatNumber(a), CsvTable.formatNumber(s),
-                        CsvTable.formatNumber(a - s));
+                String pre = String.format(Locale.ROOT, "source+imputed vs source,ridge,source+imputed,%s,none,"
+                        + "source,%s,40,%s,%s,%s,%s,%s,", c, c, t[0], t[1], CsvTable.formatNumber(a),
+                        CsvTable.formatNumber(s), CsvTable.formatNumber(a - s));
                 if (t[0].equals("bayes-correlated-t")) {
                     b.append(pre).append(",,,,,,0.61,0.27,0.12,0.01\n");
                 } else {
@@ -136,13 +136,15 @@ final class ReportFixtures {
         StringBuilder imp = new StringBuilder("imputer,feature_set,classifier,feature,view,kind,value\n");
         for (int i = 1; i <= 6; i++) {
             imp.append("ridge,source+imputed,forest,s").append(i).append(",source,gain,").append(0.1 * i).append('\n');
-            imp.append("ridge,source+imputed,forest,t").append(i).append(",imputed,gain,").append(0.07 * i).append('\n');
+            imp.append("ridge,source+imputed,forest,t").append(i).append(",imputed,gain,").append(0.07 * i)
+                    .append('\n');
         }
         Files.writeString(run.resolve("importance.csv"), imp);
         StringBuilder edges = new StringBuilder("imputer,feature,mae\n");
         for (int i = 1; i <= 5; i++) {
             for (int j = i + 1; j <= 5; j++) {
-                edges.append("ridge,R").append(i).append("~R").append(j).append(',').append(0.01 * (i + j)).append('\n');
+                edges.append("ridge,R").append(i).append("~R").append(j).append(',').append(0.01 * (i + j))
+                        .append('\n');
             }
         }
         Files.writeString(run.resolve("imputation_edges.csv"), edges);
