@@ -65,7 +65,7 @@ final class Chance {
         }
         return "<p>Labels permuted and the whole nested pipeline re-run on the same folds; p = (C + 1) / (N + 1) "
                 + "(Ojala &amp; Garriga 2010), where C of N permutations reached the observed value. Level "
-                + Html.esc(Html.p(d.alpha())) + ".</p>\n"
+                + Html.esc(CsvTable.formatNumber(d.alpha())) + ".</p>\n"
                 + Html.table("chance", List.of("pipeline", "metric", "observed", "permutations", "exceedances", "p",
                         "stopped early", "permuted within", "verdict"), rows);
     }
