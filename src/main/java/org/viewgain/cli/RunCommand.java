@@ -15,6 +15,7 @@ import org.viewgain.engine.Progress;
 import org.viewgain.engine.RunResults;
 import org.viewgain.engine.Runner;
 import org.viewgain.engine.Setup;
+import org.viewgain.report.HtmlReport;
 import org.viewgain.report.Provenance;
 import org.viewgain.report.RunFolder;
 import org.viewgain.report.RunWriter;
@@ -85,6 +86,13 @@ final class RunCommand implements Callable<Integer> {
                 .put("pipelines", ex.pipelines().size())
                 .put("model_fits", ex.modelFits());
         RunWriter.write(folder, results, prov, metrics);
+        try {
+            HtmlReport.write(folder.dir(), false);
+        } catch (IOException | RuntimeException e) {
+            // the tables are complete; a report that cannot be drawn must not turn a finished run into a failure
+            err.println("[viewgain] the report could not be written (" + e.getMessage() + "); rebuild it with "
+                    + "'viewgain report " + folder.dir() + "'");
+        }
         out.print(SummaryTable.text(metrics));
         out.println("results: " + folder.dir());
         out.flush();

@@ -1,0 +1,122 @@
+package org.viewgain.report;
+
+import java.awt.BasicStroke;
+import java.awt.Color;
+import java.awt.Font;
+import java.awt.Paint;
+import java.awt.image.BufferedImage;
+import java.io.IOException;
+import java.util.Base64;
+import org.jfree.chart.ChartUtils;
+import org.jfree.chart.JFreeChart;
+import org.jfree.chart.plot.CategoryPlot;
+import org.jfree.chart.plot.Plot;
+import org.jfree.chart.plot.XYPlot;
+import org.jfree.chart.title.LegendTitle;
+import org.jfree.chart.ui.RectangleInsets;
+
+/**
+ * Renders JFreeChart charts to PNG data URIs (drawn at twice the shown size, so they stay sharp on screen and in
+ * print) in the report's own colours. AWT runs headless: no display is needed.
+ */
+final class Charts {
+    static {
+        System.setProperty("java.awt.headless", "true");
+    }
+
+    /** The report's palette: teal, amber, plum, slate, brick, moss, sand, steel. */
+    static final Color[] PALETTE = {new Color(0x1F7A72), new Color(0xD98E04), new Color(0x7B4B94),
+        new Color(0x3E5C76), new Color(0xB5443A), new Color(0x6A8D2F), new Color(0xA68A64), new Color(0x5C7C99)};
+    static final Color INK = new Color(0x22303C);
+    static final Color GRID = new Color(0xDDE3E8);
+    static final Color CHANCE = new Color(0x9AA5AF);
+    static final Font TITLE = new Font("SansSerif", Font.BOLD, 14);
+    static final Font LABEL = new Font("SansSerif", Font.PLAIN, 12);
+    static final Font TICK = new Font("SansSerif", Font.PLAIN, 11);
+
+    private Charts() {
+    }
+
+    static Paint color(int i) {
+        return PALETTE[Math.floorMod(i, PALETTE.length)];
+    }
+
+    static BasicStroke stroke(float width) {
+        return new BasicStroke(width, BasicStroke.CAP_ROUND, BasicStroke.JOIN_ROUND);
+    }
+
+    static BasicStroke dashed(float width) {
+        return new BasicStroke(width, BasicStroke.CAP_BUTT, BasicStroke.JOIN_MITER, 10f, new float[] {5f, 4f}, 0f);
+    }
+
+    /** Applies the report's look to a chart. */
+    static JFreeChart style(JFreeChart chart) {
+        chart.setBackgroundPaint(Color.WHITE);
+        chart.setAntiAlias(true);
+        chart.setTextAntiAlias(true);
+        if (chart.getTitle() != null) {
+            chart.getTitle().setFont(TITLE);
+            chart.getTitle().setPaint(INK);
+        }
+        LegendTitle legend = chart.getLegend();
+        if (legend != null) {
+            legend.setItemFont(LABEL);
+            legend.setFrame(org.jfree.chart.block.BlockBorder.NONE);
+            legend.setBackgroundPaint(Color.WHITE);
+        }
+        Plot plot = chart.getPlot();
+        plot.setBackgroundPaint(Color.WHITE);
+        plot.setOutlineVisible(false);
+        plot.setInsets(new RectangleInsets(6, 6, 6, 12));
+        if (plot instanceof XYPlot xy) {
+            xy.setDomainGridlinePaint(GRID);
+            xy.setRangeGridlinePaint(GRID);
+            xy.setDomainGridlineStroke(stroke(1f));
+            xy.setRangeGridlineStroke(stroke(1f));
+            axes(xy.getDomainAxis());
+            axes(xy.getRangeAxis());
+        } else if (plot instanceof CategoryPlot cp) {
+            cp.setRangeGridlinePaint(GRID);
+            cp.setRangeGridlineStroke(stroke(1f));
+            cp.setDomainGridlinesVisible(false);
+            axes(cp.getDomainAxis());
+            axes(cp.getRangeAxis());
+        }
+        return chart;
+    }
+
+    private static void axes(org.jfree.chart.axis.Axis a) {
+        if (a != null) {
+            a.setLabelFont(LABEL);
+            a.setTickLabelFont(TICK);
+            a.setLabelPaint(INK);
+            a.setTickLabelPaint(INK);
+            a.setAxisLinePaint(CHANCE);
+        }
+    }
+
+    /** The chart as a PNG data URI of {@code width} x {@code height} CSS pixels. */
+    static String dataUri(JFreeChart chart, int width, int height, Redactor redact) {
+        BufferedImage img = chart.createBufferedImage(2 * width, 2 * height, width, height, null);
+        try {
+            byte[] png = ChartUtils.encodeAsPNG(img);
+            return "data:image/png;base64," + redact.base64(Base64.getEncoder().encodeToString(png));
+        } catch (IOException e) {
+            throw new IllegalStateException("cannot encode a chart as PNG", e);
+        }
+    }
+
+    /** A chart as a figure, or a plain note when it cannot be drawn (e.g. no fonts on a bare machine). */
+    static String figure(java.util.function.Supplier<JFreeChart> chart, int width, int height, String caption,
+                         Redactor redact) {
+        try {
+            return Html.img(dataUri(style(chart.get()), width, height, redact), caption, width);
+        } catch (RuntimeException | Error e) {
+            if (e instanceof VirtualMachineError vme) {
+                throw vme;
+            }
+            return "<p class=\"absent\">The chart \u201c" + Html.esc(caption) + "\u201d could not be drawn ("
+                    + Html.esc(e.getClass().getSimpleName()) + ").</p>\n";
+        }
+    }
+}

@@ -1,0 +1,183 @@
+package org.viewgain.report;
+
+import java.awt.geom.Ellipse2D;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import org.jfree.chart.JFreeChart;
+import org.jfree.chart.axis.NumberAxis;
+import org.jfree.chart.plot.XYPlot;
+import org.jfree.chart.renderer.xy.XYLineAndShapeRenderer;
+import org.jfree.data.xy.XYSeries;
+import org.jfree.data.xy.XYSeriesCollection;
+
+/** ROC curves per feature set and reliability curves with Brier scores, from the pooled rows of predictions.csv. */
+final class PredictionCharts {
+    private PredictionCharts() {
+    }
+
+    /** Pooled out-of-fold scores of one pipeline over all repeats. */
+    static final class Pooled {
+        final String label;
+        final List<Double> score = new ArrayList<>();
+        final List<Boolean> positive = new ArrayList<>();
+
+        Pooled(String label) {
+            this.label = label;
+        }
+
+        double[] scores() {
+            return score.stream().mapToDouble(Double::doubleValue).toArray();
+        }
+
+        boolean[] positives() {
+            boolean[] p = new boolean[positive.size()];
+            for (int i = 0; i < p.length; i++) {
+                p[i] = positive.get(i);
+            }
+            return p;
+        }
+    }
+
+    /** Pipelines grouped by classifier; a pipeline without scores is left out. */
+    static Map<String, Map<String, Pooled>> pool(ReportData d) {
+        Map<String, Map<String, Pooled>> out = new LinkedHashMap<>();
+        String positive = d.positive();
+        for (CsvRows.Row r : d.predictions.rows()) {
+            double s = r.d("score");
+            if (Double.isNaN(s)) {
+                continue;
+            }
+            Pooled p = out.computeIfAbsent(r.s("classifier"), k -> new LinkedHashMap<>()).computeIfAbsent(
+                    Names.key(r), k -> new Pooled(Names.features(r.s("imputer"), r.s("feature_set"))));
+            p.score.add(s);
+            p.positive.add(r.s("truth").equals(positive));
+        }
+        return out;
+    }
+
+    static String roc(ReportData d) {
+        if (d.predictions == null) {
+            return Html.notComputed("ROC curves", "predictions.csv");
+        }
+        Map<String, Map<String, Pooled>> pooled = pool(d);
+        if (pooled.isEmpty()) {
+            return "<p class=\"absent\">No classifier in this run produced scores, so there are no ROC curves.</p>\n";
+        }
+        StringBuilder b = new StringBuilder("<div class=\"grid\">");
+        pooled.forEach((c, pipes) -> b.append(Charts.figure(() -> rocChart(pipes), 480, 420, "ROC curves of "
+                + c + " per feature set: out-of-fold scores of all repeats pooled (positive group: " + d.positive()
+                + "); the area in the legend is that of the pooled curve.", d.redact)));
+        return b.append("</div>\n").toString();
+    }
+
+    private static JFreeChart rocChart(Map<String, Pooled> pipes) {
+        XYSeriesCollection data = new XYSeriesCollection();
+        for (Pooled p : pipes.values()) {
+            double[][] curve = Curves.roc(p.scores(), p.positives());
+            XYSeries s = new XYSeries(String.format(Locale.ROOT, "%s (%.3f)", p.label, Curves.area(curve)), false,
+                    true);
+            for (int i = 0; i < curve[0].length; i++) {
+                s.add(curve[0][i], curve[1][i]);
+            }
+            data.addSeries(s);
+        }
+        XYSeries diagonal = new XYSeries("chance", false, true);
+        diagonal.add(0, 0);
+        diagonal.add(1, 1);
+        data.addSeries(diagonal);
+        XYLineAndShapeRenderer r = new XYLineAndShapeRenderer(true, false);
+        for (int i = 0; i < pipes.size(); i++) {
+            r.setSeriesPaint(i, Charts.color(i));
+            r.setSeriesStroke(i, Charts.stroke(2f));
+        }
+        r.setSeriesPaint(pipes.size(), Charts.CHANCE);
+        r.setSeriesStroke(pipes.size(), Charts.dashed(1.2f));
+        XYPlot plot = new XYPlot(data, unit("false positive rate (1 \u2212 specificity)"),
+                unit("true positive rate (sensitivity)"), r);
+        return new JFreeChart(null, Charts.LABEL, plot, true);
+    }
+
+    static NumberAxis unit(String label) {
+        NumberAxis a = new NumberAxis(label);
+        a.setRange(0, 1);
+        return a;
+    }
+
+    static String calibration(ReportData d) {
+        if (d.predictions == null) {
+            return Html.notComputed("calibration curves", "predictions.csv");
+        }
+        Map<String, Map<String, Pooled>> pooled = pool(d);
+        StringBuilder b = new StringBuilder();
+        List<List<String>> brier = new ArrayList<>();
+        List<String> notProb = new ArrayList<>();
+        StringBuilder charts = new StringBuilder("<div class=\"grid\">");
+        pooled.forEach((c, pipes) -> {
+            boolean all = pipes.values().stream().allMatch(p -> Curves.probabilities(p.scores()));
+            if (!all) {
+                double lo = pipes.values().stream().flatMap(p -> p.score.stream()).mapToDouble(x -> x).min()
+                        .orElse(Double.NaN);
+                double hi = pipes.values().stream().flatMap(p -> p.score.stream()).mapToDouble(x -> x).max()
+                        .orElse(Double.NaN);
+                notProb.add(String.format(Locale.ROOT, "%s (scores from %.3g to %.3g)", c, lo, hi));
+                return;
+            }
+            for (Map.Entry<String, Pooled> e : pipes.entrySet()) {
+                double v = Curves.brier(e.getValue().scores(), e.getValue().positives());
+                brier.add(List.of(Html.esc(e.getValue().label + " \u00b7 " + c), Html.esc(Html.f3(v)),
+                        String.valueOf(e.getValue().score.size())));
+            }
+            charts.append(Charts.figure(() -> reliabilityChart(pipes), 480, 420, "Reliability of " + c
+                    + ": mean predicted probability of " + d.positive() + " against the observed fraction, in ten "
+                    + "equal-width bins of pooled out-of-fold scores; the diagonal is perfect calibration.",
+                    d.redact));
+        });
+        if (!brier.isEmpty()) {
+            b.append(charts).append("</div>\n");
+            b.append(Html.table("brier", List.of("pipeline", "Brier score", "pooled predictions"), brier));
+            b.append("<p class=\"small\">Brier score: mean squared difference between the predicted probability "
+                    + "and the outcome (0 is perfect; always predicting the prevalence scores p(1 \u2212 p)).</p>\n");
+        }
+        if (!notProb.isEmpty()) {
+            b.append("<p class=\"absent\">No calibration curve or Brier score for ")
+                    .append(Html.esc(String.join("; ", notProb)))
+                    .append(": their scores are not probabilities in [0, 1] (e.g. distances to a separating "
+                            + "hyperplane), so calibration is not defined for them.</p>\n");
+        }
+        if (pooled.isEmpty()) {
+            b.append("<p class=\"absent\">No classifier in this run produced scores, so calibration cannot be "
+                    + "shown.</p>\n");
+        }
+        return b.toString();
+    }
+
+    private static JFreeChart reliabilityChart(Map<String, Pooled> pipes) {
+        XYSeriesCollection data = new XYSeriesCollection();
+        for (Pooled p : pipes.values()) {
+            double[][] rel = Curves.reliability(p.scores(), p.positives(), 10);
+            XYSeries s = new XYSeries(p.label, false, true);
+            for (int i = 0; i < rel[0].length; i++) {
+                s.add(rel[0][i], rel[1][i]);
+            }
+            data.addSeries(s);
+        }
+        XYSeries diagonal = new XYSeries("perfect calibration", false, true);
+        diagonal.add(0, 0);
+        diagonal.add(1, 1);
+        data.addSeries(diagonal);
+        XYLineAndShapeRenderer r = new XYLineAndShapeRenderer(true, true);
+        for (int i = 0; i < pipes.size(); i++) {
+            r.setSeriesPaint(i, Charts.color(i));
+            r.setSeriesStroke(i, Charts.stroke(1.8f));
+            r.setSeriesShape(i, new Ellipse2D.Double(-3, -3, 6, 6));
+        }
+        r.setSeriesPaint(pipes.size(), Charts.CHANCE);
+        r.setSeriesStroke(pipes.size(), Charts.dashed(1.2f));
+        r.setSeriesShapesVisible(pipes.size(), false);
+        XYPlot plot = new XYPlot(data, unit("mean predicted probability"), unit("observed fraction"), r);
+        return new JFreeChart(null, Charts.LABEL, plot, true);
+    }
+}
