@@ -19,6 +19,11 @@ public final class RunWriter {
         folder.write("fold_metrics.csv", ResultTables.foldMetrics(Evaluation.foldMetrics(res)));
         folder.write("hyperparameters.csv", ResultTables.hyperparameters(res));
         folder.write("imputation.csv", ResultTables.imputation(res));
+        folder.write("confusion.csv", ResultTables.confusion(res));
+        folder.write("duplicates.csv", ResultTables.duplicates(res));
+        if (res.experiment().spec().cohort().site() != null) {
+            folder.write("site_metrics.csv", ResultTables.siteMetrics(res));
+        }
         prov.put("status", "complete");
         folder.writeText("run.json", prov.toJson());
     }
