@@ -19,6 +19,14 @@ final class SiteChecks {
     }
 
     static void check(Experiment ex, Problems problems) {
+        // unseen sites first, in every fit, so that their message names the subject; then small sites
+        if (pass(ex, problems, true)) {
+            pass(ex, problems, false);
+        }
+    }
+
+    /** Checks every fit for one kind of problem; false after recording the first one found. */
+    private static boolean pass(Experiment ex, Problems problems, boolean unseen) {
         boolean tuned = ex.classifiers().stream()
                 .anyMatch(c -> c.grid().size() * ex.prep().selectionPoints() > 1);
         Set<Boolean> populations = new LinkedHashSet<>();
@@ -32,8 +40,8 @@ final class SiteChecks {
                     List<Integer> train = population(ex, ex.plan().train(r, f), targetOnly);
                     List<Integer> test = population(ex, ex.plan().test(r, f), targetOnly);
                     String where = "repeat " + (r + 1) + ", outer fold " + (f + 1);
-                    if (!fits(ex, train, test, where, problems)) {
-                        return;
+                    if (!fits(ex, train, test, where, problems, unseen)) {
+                        return false;
                     }
                     for (int j = 0; tuned && j < ex.spec().validation().innerFolds(); j++) {
                         List<Integer> fit = new ArrayList<>();
@@ -41,13 +49,14 @@ final class SiteChecks {
                         for (int i : train) {
                             (innerOf[i] == j ? val : fit).add(i);
                         }
-                        if (!fits(ex, fit, val, where + ", inner fold " + (j + 1), problems)) {
-                            return;
+                        if (!fits(ex, fit, val, where + ", inner fold " + (j + 1), problems, unseen)) {
+                            return false;
                         }
                     }
                 }
             }
         }
+        return true;
     }
 
     private static List<Integer> population(Experiment ex, int[] positions, boolean targetOnly) {
@@ -60,14 +69,14 @@ final class SiteChecks {
         return out;
     }
 
-    /** Records the first problem of one fit and returns false, or returns true. */
+    /** Records the first problem of one fit (unseen sites, or else small sites) and returns false, or returns true. */
     private static boolean fits(Experiment ex, List<Integer> train, List<Integer> applied, String where,
-                                Problems problems) {
+                                Problems problems, boolean unseen) {
         Map<String, Integer> count = new TreeMap<>();
         for (int i : train) {
             count.merge(ex.data().subjects().get(i).site(), 1, Integer::sum);
         }
-        for (int i : applied) {
+        for (int i : unseen ? applied : List.<Integer>of()) {
             String site = ex.data().subjects().get(i).site();
             if (!count.containsKey(site)) {
                 problems.add("features.harmonize", "subject '" + ex.data().id(i) + "' of site '" + site
@@ -76,7 +85,7 @@ final class SiteChecks {
                 return false;
             }
         }
-        for (Map.Entry<String, Integer> e : count.entrySet()) {
+        for (Map.Entry<String, Integer> e : unseen ? Map.<String, Integer>of().entrySet() : count.entrySet()) {
             if (e.getValue() < 2) {
                 problems.add("features.harmonize", "site '" + e.getKey() + "' has only " + e.getValue()
                         + " training subject in " + where + "; ComBat needs at least 2 per site. Use fewer folds or"
