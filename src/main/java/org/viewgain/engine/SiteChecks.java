@@ -76,7 +76,12 @@ final class SiteChecks {
         for (int i : train) {
             count.merge(ex.data().subjects().get(i).site(), 1, Integer::sum);
         }
-        for (int i : unseen ? applied : List.<Integer>of()) {
+        return unseen ? seen(ex, count, applied, where, problems) : large(count, where, problems);
+    }
+
+    private static boolean seen(Experiment ex, Map<String, Integer> count, List<Integer> applied, String where,
+                                Problems problems) {
+        for (int i : applied) {
             String site = ex.data().subjects().get(i).site();
             if (!count.containsKey(site)) {
                 problems.add("features.harmonize", "subject '" + ex.data().id(i) + "' of site '" + site
@@ -85,7 +90,11 @@ final class SiteChecks {
                 return false;
             }
         }
-        for (Map.Entry<String, Integer> e : unseen ? Map.<String, Integer>of().entrySet() : count.entrySet()) {
+        return true;
+    }
+
+    private static boolean large(Map<String, Integer> count, String where, Problems problems) {
+        for (Map.Entry<String, Integer> e : count.entrySet()) {
             if (e.getValue() < 2) {
                 problems.add("features.harmonize", "site '" + e.getKey() + "' has only " + e.getValue()
                         + " training subject in " + where + "; ComBat needs at least 2 per site. Use fewer folds or"
