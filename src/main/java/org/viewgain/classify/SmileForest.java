@@ -21,7 +21,8 @@ import smile.data.vector.IntVector;
  * {@code random-forest}: Breiman (2001), Machine Learning 45:5-32, through Smile's {@code RandomForest} with Gini
  * splits and bootstrap samples. Every tree gets its own seed derived from {@link FitContext#seed()}, so the forest
  * does not depend on Smile's thread-local generator or on which pool thread grows which tree. Scores are the
- * fractions of tree votes per class.
+ * fractions of tree votes per class. Importance: the impurity (Gini) decrease of the splits on each feature, summed
+ * over the trees (Breiman 2001), kind {@code impurity}.
  */
 public final class SmileForest implements ClassifierMethod {
 
@@ -80,7 +81,7 @@ public final class SmileForest implements ClassifierMethod {
         RandomForest forest = RandomForest.fit(Formula.lhs(CLASS_COLUMN), data, trees, mtry, SplitRule.GINI,
                 params.getInt("max-depth"), Math.max(2, x.n()), params.getInt("min-node-size"), 1.0, null,
                 LongStream.of(treeSeeds(ctx.seed(), trees)));
-        return rows -> {
+        ClassifierMethod.Model model = rows -> {
             DataFrame test = DataFrame.of(rows.x(), columnNames(rows.p()));
             int[] labels = new int[rows.n()];
             double[][] scores = new double[rows.n()][classes];
@@ -91,6 +92,8 @@ public final class SmileForest implements ClassifierMethod {
             }
             return new Predictions(labels, scores);
         };
+        // Smile's importance: the Gini impurity decrease of every split on a feature, summed over all trees
+        return new Explained(model, forest.importance(), Explained.IMPURITY);
     }
 
     private static String[] columnNames(int p) {

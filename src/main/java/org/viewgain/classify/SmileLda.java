@@ -18,6 +18,8 @@ import smile.math.matrix.Matrix;
  * covariance and stops on a constant column, so the covariance is built here and handed to Smile's {@code LDA}
  * constructor, which evaluates the discriminant. Eigenvalues below 1e-10 of the largest are raised to that floor, so
  * constant columns (shrinkage 0) do not divide by zero. Deterministic. Scores are posterior class probabilities.
+ * Importance: absolute discriminant weights {@code S^-1 (mu1 - mu0)} on standardized inputs (more classes: the mean
+ * over classes of {@code |S^-1 (mu_c - mu)|}), kind {@code abs_weight}.
  */
 public final class SmileLda implements ClassifierMethod {
 
@@ -80,8 +82,9 @@ public final class SmileLda implements ClassifierMethod {
         for (int j = 0; j < p; j++) {
             eigen[j] = Math.max(eigen[j], floor);
         }
-        LDA model = new LDA(prior, mu, eigen, Matrix.of(evd.getV().getData()));
-        return rows -> {
+        double[][] v = evd.getV().getData();
+        LDA model = new LDA(prior, mu, eigen, Matrix.of(v));
+        ClassifierMethod.Model fitted = rows -> {
             int[] labels = new int[rows.n()];
             double[][] scores = new double[rows.n()][classes];
             for (int i = 0; i < rows.n(); i++) {
@@ -89,6 +92,42 @@ public final class SmileLda implements ClassifierMethod {
             }
             return new Predictions(labels, scores);
         };
+        return new Explained(fitted, Explained.absWeights(discriminants(mu, prior, eigen, v), x.x()),
+                Explained.ABS_WEIGHT);
+    }
+
+    /**
+     * Discriminant directions {@code S^-1 d} with {@code S = V diag(eigen) V'}: for two classes {@code d = mu1 - mu0};
+     * for more, one per class, {@code d = mu_c - sum_k prior_k mu_k}.
+     */
+    static double[][] discriminants(double[][] mu, double[] prior, double[] eigen, double[][] v) {
+        int classes = mu.length;
+        int p = eigen.length;
+        double[] centre = new double[p];
+        for (int c = 0; c < classes; c++) {
+            for (int j = 0; j < p; j++) {
+                centre[j] += prior[c] * mu[c][j];
+            }
+        }
+        int rows = classes == 2 ? 1 : classes;
+        double[][] out = new double[rows][p];
+        for (int r = 0; r < rows; r++) {
+            double[] d = new double[p];
+            for (int j = 0; j < p; j++) {
+                d[j] = classes == 2 ? mu[1][j] - mu[0][j] : mu[r][j] - centre[j];
+            }
+            for (int e = 0; e < p; e++) {
+                double proj = 0;
+                for (int j = 0; j < p; j++) {
+                    proj += v[j][e] * d[j];
+                }
+                proj /= eigen[e];
+                for (int j = 0; j < p; j++) {
+                    out[r][j] += v[j][e] * proj;
+                }
+            }
+        }
+        return out;
     }
 
     private static double[][] pooledCovariance(double[][] x, int[] y, double[][] mu, int classes) {

@@ -10,7 +10,8 @@ import smile.classification.LogisticRegression;
 /**
  * {@code logistic}: L2-penalised logistic regression (binomial for two classes, multinomial otherwise) fitted by
  * Smile with BFGS (le Cessie &amp; van Houwelingen 1992, Applied Statistics 41:191-201). Deterministic. Scores are
- * the fitted class probabilities.
+ * the fitted class probabilities. Importance: absolute coefficients on standardized inputs (for more than two classes
+ * the mean over the coefficient rows, each class against the last), kind {@code abs_weight}.
  */
 public final class SmileLogistic implements ClassifierMethod {
 
@@ -37,7 +38,7 @@ public final class SmileLogistic implements ClassifierMethod {
         TrainingLabels.check(method(), x, y, classes);
         LogisticRegression model = LogisticRegression.fit(x.x(), y, params.getDouble("lambda"),
                 params.getDouble("tolerance"), params.getInt("iterations"));
-        return rows -> {
+        ClassifierMethod.Model fitted = rows -> {
             int[] labels = new int[rows.n()];
             double[][] scores = new double[rows.n()][classes];
             for (int i = 0; i < rows.n(); i++) {
@@ -45,5 +46,9 @@ public final class SmileLogistic implements ClassifierMethod {
             }
             return new Predictions(labels, scores);
         };
+        // coefficients: feature weights then the intercept (last); multinomial: one row per class but the last
+        double[][] w = model instanceof LogisticRegression.Binomial b ? new double[][] {b.coefficients()}
+                : ((LogisticRegression.Multinomial) model).coefficients();
+        return new Explained(fitted, Explained.absWeights(w, x.x()), Explained.ABS_WEIGHT);
     }
 }

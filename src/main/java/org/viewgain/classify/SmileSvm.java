@@ -23,6 +23,8 @@ import smile.math.kernel.MercerKernel;
  * <p>RBF kernel {@code exp(-gamma * |x - x'|^2)}; {@code gamma: scale} means {@code 1 / (p * var)} with {@code var}
  * the variance of all training values (population form), as scikit-learn's default. LASVM visits the rows in a random
  * order, so Smile's thread-local generator is seeded right before each machine is fitted, on the fitting thread.
+ * Importance (linear kernel only): absolute weights {@code w = sum_i alpha_i x_i} on standardized inputs, the mean
+ * over machines for more than two classes, kind {@code abs_weight}.
  */
 public final class SmileSvm implements ClassifierMethod {
 
@@ -99,7 +101,7 @@ public final class SmileSvm implements ClassifierMethod {
             fitted.add(SVM.fit(x.x(), signs, kernel, params.getDouble("C"), params.getDouble("tolerance"),
                     params.getInt("epochs")));
         }
-        return rows -> {
+        ClassifierMethod.Model model = rows -> {
             int[] labels = new int[rows.n()];
             double[][] scores = new double[rows.n()][classes];
             for (int i = 0; i < rows.n(); i++) {
@@ -117,5 +119,20 @@ public final class SmileSvm implements ClassifierMethod {
             }
             return new Predictions(labels, scores);
         };
+        if (rbf) {
+            return model;
+        }
+        // a linear machine's weight vector is the weighted sum of its support vectors
+        double[][] w = new double[machines][x.p()];
+        for (int m = 0; m < machines; m++) {
+            double[][] sv = fitted.get(m).vectors();
+            double[] alpha = fitted.get(m).weights();
+            for (int i = 0; i < sv.length; i++) {
+                for (int j = 0; j < x.p(); j++) {
+                    w[m][j] += alpha[i] * sv[i][j];
+                }
+            }
+        }
+        return new Explained(model, Explained.absWeights(w, x.x()), Explained.ABS_WEIGHT);
     }
 }

@@ -57,6 +57,8 @@ final class RunCommand implements Callable<Integer> {
         PrintWriter err = cl.getErr();
         Experiment ex = Setup.prepare(SpecLoader.load(specFile));
         ComparisonPairs.of(ex); // names in significance.compare are checked before anything is written
+        err.print(org.viewgain.report.CheckReport.duplicateWarning(ex));
+        err.flush();
         Instant start = Instant.now();
         RunFolder folder = RunFolder.create(outRoot, ex.spec().experiment(), start);
         List<String> ids = ex.data().subjects().stream().map(Subject::id).toList();

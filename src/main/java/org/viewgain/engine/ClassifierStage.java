@@ -4,7 +4,6 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.Map;
-import org.viewgain.classify.ClassifierMethod;
 import org.viewgain.classify.Predictions;
 import org.viewgain.cohort.Extractors;
 import org.viewgain.cohort.Rows;
@@ -16,9 +15,10 @@ import org.viewgain.spec.Params;
 import org.viewgain.stats.ClassificationMetrics;
 
 /**
- * Trains and tests one pipeline in one outer fold: grid search over the classifier's grid by inner cross-validation
- * on the outer training subjects (scaling re-fitted inside every inner fold), then a final fit on the outer training
- * subjects and predictions for the outer test subjects.
+ * Trains and tests one pipeline in one outer fold: grid search by inner cross-validation on the outer training
+ * subjects over the classifier's grid combined with the selection settings (every step re-fitted inside every inner
+ * fold, see {@link FitChain}), then a final fit on the outer training subjects and predictions for the outer test
+ * subjects.
  */
 final class ClassifierStage {
     private final Experiment ex;
@@ -27,8 +27,41 @@ final class ClassifierStage {
         this.ex = ex;
     }
 
-    /** The result of one unit. */
-    record Output(List<RunResults.Prediction> predictions, RunResults.Choice choice) {
+    /**
+     * The result of one unit.
+     *
+     * @param importance what the final model used (null for permuted labels)
+     */
+    record Output(List<RunResults.Prediction> predictions, RunResults.Choice choice, Importance.Fold importance) {
+    }
+
+    /** One grid point: classifier hyperparameters and a selection setting (index into the keep values, or -1). */
+    private record Point(Params params, int selection) {
+        /** Parts added to a seed derivation, unchanged from a run without selection when there is none. */
+        Object[] seedParts(Experiment ex, Object... head) {
+            List<Object> parts = new ArrayList<>(Arrays.asList(head));
+            parts.add(params);
+            if (selection >= 0) {
+                parts.add("keep");
+                parts.add(ex.prep().keep().get(selection));
+            }
+            return parts.toArray();
+        }
+
+        String describe(Experiment ex) {
+            return selection < 0 ? params.toString()
+                    : params.with("select.keep", ex.prep().keep().get(selection)).toString();
+        }
+    }
+
+    private List<Point> points(Resolved.Classifier cl) {
+        List<Point> out = new ArrayList<>();
+        for (int s = ex.prep().selects() ? 0 : -1; s < ex.prep().keep().size(); s++) {
+            for (Params params : cl.grid()) {
+                out.add(new Point(params, s));
+            }
+        }
+        return out;
     }
 
     Output run(Pipeline p, int permutation, int repeat, int fold, int[] innerOf, ImputedFold imputed, int[] labels) {
@@ -40,25 +73,38 @@ final class ClassifierStage {
         Rows trainRows = rows(p.featureSet(), train, imputed);
         int[] yTrain = pick(labels, train);
         FitContext base = new FitContext(permutation, repeat, fold, FitContext.WHOLE, FitContext.Role.FINAL, 0L);
-        Params chosen = cl.grid().get(0);
+        List<Point> points = points(cl);
+        Point chosen = points.get(0);
         double innerScore = Double.NaN;
-        if (cl.grid().size() > 1) {
+        if (points.size() > 1) {
+            double[] score = innerScores(p, cl, points, base, train, trainRows, yTrain, innerOf);
             double best = Double.NEGATIVE_INFINITY;
-            for (Params params : cl.grid()) {
-                double score = innerScore(p, cl, params, base, train, trainRows, yTrain, innerOf);
-                if (score > best) {
-                    best = score;
-                    chosen = params;
+            for (int g = 0; g < points.size(); g++) {
+                if (score[g] > best) {
+                    best = score[g];
+                    chosen = points.get(g);
                 }
             }
             innerScore = best;
         }
+        long seed = ex.spec().seed();
+        FitContext prepCtx = base.at(FitContext.WHOLE, FitContext.Role.FINAL,
+                Seeds.derive(seed, "prep", permutation, repeat, fold, "final", p.label()));
+        FitChain.Steps steps = FitChain.upstream(ex, prepCtx, trainRows, yTrain);
+        Rows in = steps.apply(trainRows);
+        Transform.Fitted sel = FitChain.selection(ex, prepCtx, in, yTrain, chosen.selection());
+        if (sel != null) {
+            steps = steps.then(sel);
+            in = sel.apply(in);
+        }
         FitContext ctx = base.at(FitContext.WHOLE, FitContext.Role.FINAL,
-                Seeds.derive(ex.spec().seed(), "classify", permutation, repeat, fold, "final", p.label(), chosen));
-        Fitted model = fit(ctx, cl.method(), trainRows, yTrain, chosen);
+                Seeds.derive(seed, chosen.seedParts(ex, "classify", permutation, repeat, fold, "final", p.label())));
+        FitChain.Fitted model = new FitChain.Fitted(steps,
+                cl.method().fit(ctx, in, yTrain, ex.spec().cohort().groups().size(), chosen.params()),
+                in.featureNames());
         Predictions pr = model.predict(rows(p.featureSet(), test, imputed));
         List<RunResults.Prediction> out = new ArrayList<>(test.length);
-        int positive = ex.spec().cohort().positiveIndex();
+        int positive = ex.spec().cohort().groups().size() == 2 ? ex.spec().cohort().positiveIndex() : -1;
         for (int t = 0; t < test.length; t++) {
             double score = Double.NaN;
             double[] scores = pr.hasScores() ? pr.scores()[t] : null;
@@ -68,18 +114,23 @@ final class ClassifierStage {
             out.add(new RunResults.Prediction(p, repeat, fold, test[t], labels[test[t]], pr.labels()[t], score,
                     scores));
         }
+        Importance.Fold used = permutation == 0 ? new Importance.Fold(p, repeat, fold, sel != null,
+                model.inputNames(), model.model().importance(), model.model().importanceKind()) : null;
         return new Output(out, new RunResults.Choice(repeat, fold, "classifier", p.imputer(),
-                p.featureSet().label(), p.classifier(), chosen.toString(), innerScore, cl.grid().size()));
+                p.featureSet().label(), p.classifier(), chosen.describe(ex), innerScore, points.size()), used);
     }
 
-    private double innerScore(Pipeline p, Resolved.Classifier cl, Params params, FitContext base, int[] train,
-                              Rows trainRows, int[] yTrain, int[] innerOf) {
+    /** The tune-by score of every grid point by inner cross-validation ({@code -infinity} where undefined). */
+    private double[] innerScores(Pipeline p, Resolved.Classifier cl, List<Point> points, FitContext base,
+                                 int[] train, Rows trainRows, int[] yTrain, int[] innerOf) {
         int k = ex.spec().validation().innerFolds();
         int classes = ex.spec().cohort().groups().size();
         int n = train.length;
-        int[] pred = new int[n];
-        double[][] scores = new double[n][];
-        boolean haveScores = true;
+        int[][] pred = new int[points.size()][n];
+        double[][][] scores = new double[points.size()][n][];
+        boolean[] haveScores = new boolean[points.size()];
+        Arrays.fill(haveScores, true);
+        long seed = ex.spec().seed();
         for (int j = 0; j < k; j++) {
             List<Integer> fitPos = new ArrayList<>();
             List<Integer> valPos = new ArrayList<>();
@@ -91,22 +142,50 @@ final class ClassifierStage {
             }
             int[] fp = fitPos.stream().mapToInt(Integer::intValue).toArray();
             int[] vp = valPos.stream().mapToInt(Integer::intValue).toArray();
-            FitContext ctx = base.at(j, FitContext.Role.TUNE, Seeds.derive(ex.spec().seed(), "classify",
-                    base.permutation(), base.repeat(), base.outerFold(), j, p.label(), params));
-            Fitted m = fit(ctx, cl.method(), trainRows.select(fp), pick(yTrain, fp), params);
-            Predictions pr = m.predict(trainRows.select(vp));
-            for (int t = 0; t < vp.length; t++) {
-                pred[vp[t]] = pr.labels()[t];
-                scores[vp[t]] = pr.hasScores() ? pr.scores()[t] : null;
+            int[] yFit = pick(yTrain, fp);
+            FitContext prepCtx = base.at(j, FitContext.Role.TUNE, Seeds.derive(seed, "prep", base.permutation(),
+                    base.repeat(), base.outerFold(), j, p.label()));
+            Rows fitRows = trainRows.select(fp);
+            FitChain.Steps up = FitChain.upstream(ex, prepCtx, fitRows, yFit);
+            Rows fitUp = up.apply(fitRows);
+            Rows valUp = up.apply(trainRows.select(vp));
+            Transform.Fitted sel = null;
+            int selFor = Integer.MIN_VALUE;
+            Rows fitIn = fitUp;
+            Rows valIn = valUp;
+            for (int g = 0; g < points.size(); g++) {
+                Point point = points.get(g);
+                if (point.selection() != selFor) {
+                    selFor = point.selection();
+                    sel = FitChain.selection(ex, prepCtx, fitUp, yFit, selFor);
+                    fitIn = sel == null ? fitUp : sel.apply(fitUp);
+                    valIn = sel == null ? valUp : sel.apply(valUp);
+                }
+                FitContext ctx = base.at(j, FitContext.Role.TUNE, Seeds.derive(seed, point.seedParts(ex, "classify",
+                        base.permutation(), base.repeat(), base.outerFold(), j, p.label())));
+                Predictions pr = cl.method().fit(ctx, fitIn, yFit, classes, point.params()).predict(valIn);
+                for (int t = 0; t < vp.length; t++) {
+                    pred[g][vp[t]] = pr.labels()[t];
+                    scores[g][vp[t]] = pr.hasScores() ? pr.scores()[t] : null;
+                }
+                haveScores[g] &= pr.hasScores();
             }
-            haveScores &= pr.hasScores();
         }
-        Map<String, Double> m = metrics(yTrain, pred, haveScores ? scores : null, classes);
-        double v = m.get(ex.spec().validation().tuneBy().replace('-', '_'));
-        return Double.isNaN(v) ? Double.NEGATIVE_INFINITY : v;
+        String tuneBy = ex.spec().validation().tuneBy().replace('-', '_');
+        double[] out = new double[points.size()];
+        for (int g = 0; g < points.size(); g++) {
+            double v = metrics(yTrain, pred[g], haveScores[g] ? scores[g] : null, classes).get(tuneBy);
+            out[g] = Double.isNaN(v) ? Double.NEGATIVE_INFINITY : v;
+        }
+        return out;
     }
 
     Map<String, Double> metrics(int[] truth, int[] pred, double[][] scores, int classes) {
+        return metrics(ex, truth, pred, scores, classes);
+    }
+
+    /** Metrics of one set of predictions: two-group metrics for the positive group, macro metrics for more. */
+    static Map<String, Double> metrics(Experiment ex, int[] truth, int[] pred, double[][] scores, int classes) {
         int positive = ex.spec().cohort().positiveIndex();
         if (classes == 2) {
             double[] s = null;
@@ -119,23 +198,6 @@ final class ClassifierStage {
             return ClassificationMetrics.binary(truth, pred, s, positive);
         }
         return ClassificationMetrics.multiclass(truth, pred, scores, classes);
-    }
-
-    /** A fitted scaling + classifier pair. */
-    private record Fitted(Transform.Fitted scaler, ClassifierMethod.Model model) {
-        Predictions predict(Rows x) {
-            return model.predict(scaler == null ? x : scaler.apply(x));
-        }
-    }
-
-    private Fitted fit(FitContext ctx, ClassifierMethod method, Rows x, int[] y, Params params) {
-        Transform.Fitted scaler = null;
-        Rows xs = x;
-        if (ex.scaler() != null) {
-            scaler = ex.scaler().fit(ctx, x, y);
-            xs = scaler.apply(x);
-        }
-        return new Fitted(scaler, method.fit(ctx, xs, y, ex.spec().cohort().groups().size(), params));
     }
 
     /** Feature rows of a feature set for the given subject positions. */
@@ -160,6 +222,11 @@ final class ClassifierStage {
     }
 
     List<String> names(FeatureSet fs) {
+        return names(ex, fs);
+    }
+
+    /** Prefixed feature names of a feature set: {@code source:}, then {@code target:} or {@code imputed:}. */
+    static List<String> names(Experiment ex, FeatureSet fs) {
         StudyData d = ex.data();
         List<String> out = new ArrayList<>();
         if (fs.usesSource()) {

@@ -9,14 +9,23 @@ import org.viewgain.spec.FeatureSet;
 
 /**
  * Everything a run needs, checked and ready: the spec, the loaded data, the fold plan, the resolved methods and the
- * list of pipelines in output order, and the scaling step (null for none).
+ * list of pipelines in output order, the scaling step (null for none), the other steps fitted inside every fit, and
+ * the possible duplicate scans found in the source view.
  */
 public record Experiment(ExperimentSpec spec, StudyData data, FoldPlan plan, List<Resolved.Imputer> imputers,
-                         List<Resolved.Classifier> classifiers, List<Pipeline> pipelines, Transform scaler) {
+                         List<Resolved.Classifier> classifiers, List<Pipeline> pipelines, Transform scaler,
+                         Preprocessing prep, List<Duplicates.Pair> duplicates) {
     public Experiment {
         imputers = List.copyOf(imputers);
         classifiers = List.copyOf(classifiers);
         pipelines = List.copyOf(pipelines);
+        duplicates = List.copyOf(duplicates);
+    }
+
+    /** An experiment with scaling as the only step and no duplicate check. */
+    public Experiment(ExperimentSpec spec, StudyData data, FoldPlan plan, List<Resolved.Imputer> imputers,
+                      List<Resolved.Classifier> classifiers, List<Pipeline> pipelines, Transform scaler) {
+        this(spec, data, plan, imputers, classifiers, pipelines, scaler, Preprocessing.none(), List.of());
     }
 
     /** Pipelines in a fixed order: feature sets as listed, then imputers, then classifiers as listed. */
@@ -60,7 +69,7 @@ public record Experiment(ExperimentSpec spec, StudyData data, FoldPlan plan, Lis
             }
         }
         for (Pipeline p : pipelines) {
-            int g = classifier(p.classifier()).grid().size();
+            int g = classifier(p.classifier()).grid().size() * prep.selectionPoints();
             perFold += (g > 1 ? (long) g * k : 0) + 1;
         }
         long folds = 0;

@@ -2,8 +2,13 @@ package org.viewgain.engine;
 
 import org.viewgain.classify.ClassifierMethod;
 import org.viewgain.classify.ClassifierRegistry;
+import java.util.List;
+import java.util.Map;
 import org.viewgain.imputation.ImputerRegistry;
 import org.viewgain.imputation.ViewImputer;
+import org.viewgain.prep.ComBat;
+import org.viewgain.prep.CovariateAdjust;
+import org.viewgain.prep.SelectTopK;
 import org.viewgain.prep.Standardize;
 import org.viewgain.prep.Transform;
 
@@ -21,6 +26,33 @@ public interface Methods {
 
     /** The scaling step for {@code features.scale}, or null for {@code none}. */
     Transform scaler(String scale);
+
+    /**
+     * The selection step of {@code features.select} for one value of {@code keep}.
+     *
+     * @throws IllegalArgumentException for an unknown method or a keep below 1
+     */
+    default Transform selector(String method, int keep) {
+        return new SelectTopK(method, keep);
+    }
+
+    /** The covariate adjustment of {@code features.adjust}: covariate values per subject id, in {@code names} order. */
+    default Transform covariateAdjuster(Map<String, double[]> covariatesById, List<String> names) {
+        return new CovariateAdjust(covariatesById, names);
+    }
+
+    /**
+     * The harmonization of {@code features.harmonize} ({@code combat}).
+     *
+     * @param siteById       site of every subject
+     * @param covariatesById covariates ComBat keeps in the data (values per subject id), or an empty map
+     */
+    default Transform harmonizer(String method, Map<String, String> siteById, Map<String, double[]> covariatesById) {
+        if (!"combat".equals(method)) {
+            throw new IllegalArgumentException("unknown harmonization '" + method + "'; allowed: combat");
+        }
+        return new ComBat(siteById, covariatesById);
+    }
 
     /** The methods of the registries. */
     static Methods standard() {

@@ -8,17 +8,19 @@ import org.viewgain.folds.FoldPlan;
  * hyperparameters, and the imputation quality rows. The report package turns these into tables.
  */
 public record RunResults(Experiment experiment, FoldPlan plan, List<Prediction> predictions,
-                         List<Choice> choices, List<ImputationRow> imputation, List<PermutationResult> permutations) {
+                         List<Choice> choices, List<ImputationRow> imputation, List<PermutationResult> permutations,
+                         List<Importance.Fold> importance) {
     public RunResults {
         predictions = List.copyOf(predictions);
         choices = List.copyOf(choices);
         imputation = List.copyOf(imputation);
         permutations = List.copyOf(permutations);
+        importance = List.copyOf(importance);
     }
 
     /** The same results with the permutation tests added. */
     public RunResults withPermutations(List<PermutationResult> perms) {
-        return new RunResults(experiment, plan, predictions, choices, imputation, perms);
+        return new RunResults(experiment, plan, predictions, choices, imputation, perms, importance);
     }
 
     /**

@@ -174,6 +174,7 @@ public final class Runner {
         List<RunResults.Prediction> predictions = new ArrayList<>();
         List<RunResults.Choice> choices = new ArrayList<>();
         List<RunResults.ImputationRow> quality = new ArrayList<>();
+        List<Importance.Fold> importance = new ArrayList<>();
         for (int[] rf : state.folds) {
             for (int m = 0; m < ex.imputers().size(); m++) {
                 ImputedFold fi = state.imputed[rf[2]][m];
@@ -196,9 +197,12 @@ public final class Runner {
                 ClassifierStage.Output o = outputs.get(rf[2] * perFold + pi);
                 predictions.addAll(o.predictions());
                 choices.add(o.choice());
+                if (o.importance() != null) {
+                    importance.add(o.importance());
+                }
             }
         }
-        return new RunResults(ex, ex.plan(), predictions, choices, quality, List.of());
+        return new RunResults(ex, ex.plan(), predictions, choices, quality, List.of(), importance);
     }
 
     private static <T> List<T> invokeAll(ExecutorService pool, List<Callable<T>> tasks) {

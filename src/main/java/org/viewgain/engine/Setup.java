@@ -35,11 +35,55 @@ public final class Setup {
         problems.throwIfAny();
         FoldPlan plan = plan(spec, data);
         List<Pipeline> pipelines = Experiment.pipelines(spec.featureSets(), imputers, classifiers);
+        Preprocessing prep = preprocessing(spec, data, methods, problems);
+        problems.throwIfAny();
+        double[][] base = data.subjects().stream().map(s -> data.source().base(s.id())).toArray(double[][]::new);
+        List<Duplicates.Pair> duplicates = Duplicates.find(base, spec.cohort().duplicateThreshold());
         Experiment ex = new Experiment(spec, data, plan, imputers, classifiers, pipelines,
-                methods.scaler(spec.features().scale()));
+                methods.scaler(spec.features().scale()), prep, duplicates);
         checkPlan(ex, problems);
         problems.throwIfAny();
+        if (prep.harmonizer() != null) {
+            SiteChecks.check(ex, problems);
+            problems.throwIfAny();
+        }
         return ex;
+    }
+
+    /** The steps of {@code features.adjust}, {@code features.harmonize} and {@code features.select}. */
+    static Preprocessing preprocessing(ExperimentSpec spec, StudyData data, Methods methods, Problems problems) {
+        Specs.Features f = spec.features();
+        Map<String, double[]> covariates = new HashMap<>();
+        Map<String, String> sites = new HashMap<>();
+        for (Subject s : data.subjects()) {
+            covariates.put(s.id(), f.adjust().stream().mapToDouble(s::covariate).toArray());
+            sites.put(s.id(), s.site());
+        }
+        org.viewgain.prep.Transform adjuster = null;
+        org.viewgain.prep.Transform harmonizer = null;
+        List<org.viewgain.prep.Transform> selectors = new java.util.ArrayList<>();
+        try {
+            if (!f.adjust().isEmpty()) {
+                adjuster = methods.covariateAdjuster(covariates, f.adjust());
+            }
+            if (f.harmonize() != null) {
+                harmonizer = methods.harmonizer(f.harmonize(), sites, f.adjust().isEmpty() ? Map.of() : covariates);
+            }
+        } catch (IllegalArgumentException e) {
+            problems.add(f.adjust().isEmpty() ? "features.harmonize" : "features.adjust", e.getMessage());
+        }
+        if (f.select() == null) {
+            return new Preprocessing(adjuster, harmonizer, null, List.of(), List.of());
+        }
+        for (int keep : f.select().keep()) {
+            try {
+                selectors.add(methods.selector(f.select().method(), keep));
+            } catch (IllegalArgumentException e) {
+                problems.add("features.select", e.getMessage());
+                return Preprocessing.none();
+            }
+        }
+        return new Preprocessing(adjuster, harmonizer, f.select().method(), f.select().keep(), selectors);
     }
 
     static FoldPlan plan(ExperimentSpec spec, StudyData data) {

@@ -4,6 +4,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.TreeMap;
 import org.viewgain.cohort.Subject;
+import org.viewgain.engine.Duplicates;
 import org.viewgain.engine.Experiment;
 import org.viewgain.engine.Pipeline;
 import org.viewgain.folds.FoldPlan;
@@ -58,6 +59,7 @@ public final class CheckReport {
             b.append(", target ").append(d.targetNames().size());
         }
         b.append(" (extract: ").append(String.join(", ", ex.spec().features().extract())).append(")\n");
+        b.append("  fitted inside every fit: ").append(steps(ex)).append('\n');
         FoldPlan plan = ex.plan();
         b.append("\nfolds: ").append(plan.scheme()).append(", ").append(plan.repeats()).append(" repeat(s); inner ")
                 .append(ex.spec().validation().innerFolds()).append(" folds, tuned by ")
@@ -74,7 +76,56 @@ public final class CheckReport {
             b.append("  ").append(p.label()).append('\n');
         }
         b.append("model fits in this run: ").append(ex.modelFits()).append('\n');
+        b.append('\n').append(duplicates(ex, 20));
         return b.toString();
+    }
+
+    /** The steps of {@code features} in the order they are fitted. */
+    static String steps(Experiment ex) {
+        var f = ex.spec().features();
+        List<String> s = new java.util.ArrayList<>();
+        if (!f.adjust().isEmpty()) {
+            s.add("covariate adjustment (" + String.join(", ", f.adjust()) + ")");
+        }
+        if (f.harmonize() != null) {
+            s.add(f.harmonize() + " by site");
+        }
+        if (ex.scaler() != null) {
+            s.add(ex.scaler().name());
+        }
+        if (f.select() != null) {
+            s.add("selection " + f.select().method() + " keep " + (f.select().keep().size() == 1
+                    ? f.select().keep().get(0) : f.select().keep() + " (tuned)"));
+        }
+        s.add("classifier");
+        return String.join(" -> ", s);
+    }
+
+    /** Possible duplicate scans, at most {@code limit} listed; one line when there are none. */
+    public static String duplicates(Experiment ex, int limit) {
+        double threshold = ex.spec().cohort().duplicateThreshold();
+        List<Duplicates.Pair> pairs = ex.duplicates();
+        if (pairs.isEmpty()) {
+            return "possible duplicate scans: none (no two source views correlate above " + threshold + ")\n";
+        }
+        StringBuilder b = new StringBuilder();
+        b.append("possible duplicate scans: ").append(pairs.size()).append(" pair(s) of subjects whose source views")
+                .append(" correlate above ").append(threshold)
+                .append("; the same person in training and test inflates accuracy\n");
+        for (int k = 0; k < Math.min(limit, pairs.size()); k++) {
+            Duplicates.Pair d = pairs.get(k);
+            b.append(String.format(java.util.Locale.ROOT, "  %s ~ %s (r = %.6f)%n", ex.data().id(d.a()),
+                    ex.data().id(d.b()), d.correlation()));
+        }
+        if (pairs.size() > limit) {
+            b.append("  ... and ").append(pairs.size() - limit).append(" more (all are listed in duplicates.csv)\n");
+        }
+        return b.toString();
+    }
+
+    /** The warning a run prints to stderr before it starts; empty when there are no possible duplicates. */
+    public static String duplicateWarning(Experiment ex) {
+        return ex.duplicates().isEmpty() ? "" : "[viewgain] warning: " + duplicates(ex, 5);
     }
 
     private static String describe(org.viewgain.cohort.View v) {

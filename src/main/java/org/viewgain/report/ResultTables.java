@@ -5,6 +5,10 @@ import org.viewgain.engine.Evaluation;
 import org.viewgain.engine.Experiment;
 import org.viewgain.engine.RunResults;
 import org.viewgain.folds.FoldPlan;
+import org.viewgain.engine.Confusion;
+import org.viewgain.engine.Duplicates;
+import org.viewgain.engine.Importance;
+import org.viewgain.engine.SiteMetrics;
 
 /** The tidy tables of a run, one fact per row, snake_case columns; repeats and folds are numbered from 1. */
 public final class ResultTables {
@@ -177,5 +181,46 @@ public final class ResultTables {
             ss += (x - m) * (x - m);
         }
         return Math.sqrt(ss / (v.length - 1));
+    }
+
+    /** confusion.csv: every truth x predicted cell per pipeline and repeat. */
+    public static CsvTable confusion(RunResults res) {
+        List<String> groups = res.experiment().spec().cohort().groups();
+        CsvTable t = new CsvTable("imputer", "feature_set", "classifier", "repeat", "truth", "predicted", "count");
+        for (Confusion.Cell c : Confusion.cells(res)) {
+            t.row().text(c.pipeline().imputer()).text(c.pipeline().featureSet().label()).text(c.pipeline().classifier())
+                    .integer(c.repeat() + 1).text(groups.get(c.truth())).text(groups.get(c.predicted()))
+                    .integer(c.count());
+        }
+        return t;
+    }
+
+    /** site_metrics.csv: metrics of each pipeline within each site (mean over repeats). */
+    public static CsvTable siteMetrics(RunResults res) {
+        CsvTable t = new CsvTable("imputer", "feature_set", "classifier", "site", "metric", "estimate", "n");
+        for (SiteMetrics.Row m : SiteMetrics.rows(res)) {
+            t.row().text(m.pipeline().imputer()).text(m.pipeline().featureSet().label()).text(m.pipeline().classifier())
+                    .text(m.site()).text(m.metric()).number(m.estimate()).integer(m.n());
+        }
+        return t;
+    }
+
+    /** importance.csv: selection frequency and model importance per pipeline and feature. */
+    public static CsvTable importance(List<Importance.Row> rows) {
+        CsvTable t = new CsvTable("imputer", "feature_set", "classifier", "feature", "view", "kind", "value");
+        for (Importance.Row r : rows) {
+            t.row().text(r.pipeline().imputer()).text(r.pipeline().featureSet().label()).text(r.pipeline().classifier())
+                    .text(r.feature()).text(r.view()).text(r.kind()).number(r.value());
+        }
+        return t;
+    }
+
+    public static CsvTable duplicates(RunResults res) {
+        Experiment ex = res.experiment();
+        CsvTable t = new CsvTable("subject_a", "subject_b", "correlation");
+        for (Duplicates.Pair d : ex.duplicates()) {
+            t.row().text(ex.data().id(d.a())).text(ex.data().id(d.b())).number(d.correlation());
+        }
+        return t;
     }
 }

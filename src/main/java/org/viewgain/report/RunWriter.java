@@ -26,6 +26,13 @@ public final class RunWriter {
             folder.write("permutations.csv", SignificanceTables.permutations(res.permutations()));
             folder.write("permutation_null.csv", SignificanceTables.permutationNull(res.permutations()));
         }
+        folder.write("confusion.csv", ResultTables.confusion(res));
+        folder.write("importance.csv", ResultTables.importance(
+                org.viewgain.engine.Importance.rows(res.experiment(), res.importance())));
+        folder.write("duplicates.csv", ResultTables.duplicates(res));
+        if (res.experiment().spec().cohort().site() != null) {
+            folder.write("site_metrics.csv", ResultTables.siteMetrics(res));
+        }
         prov.put("status", "complete");
         folder.writeText("run.json", prov.toJson());
     }

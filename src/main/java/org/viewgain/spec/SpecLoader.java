@@ -62,6 +62,7 @@ public final class SpecLoader {
         Specs.View source = view(views, "source", base, true);
         Specs.View target = view(views, "target", base, false);
         Specs.Features features = features(top.section("features", false), source, target);
+        features = FeatureSteps.read(top.section("features", false), features, cohort);
         List<Specs.Method> imputers = methods(top, "imputers", base, false);
         Specs.TrainingImputation training = top.has("imputed-for-training")
                 ? trainingImputation(top) : Specs.TrainingImputation.CROSS_FITTED;
@@ -70,6 +71,7 @@ public final class SpecLoader {
         List<Specs.Method> classifiers = methods(top, "classifiers", base, true);
         Specs.Validation validation = validation(top.section("validation", false), cohort);
         Specs.Significance significance = significance(top.section("significance", false), sets, validation);
+        FeatureSteps.checkScheme(features, validation, problems);
 
         for (int i = 0; i < sets.size(); i++) {
             FeatureSet fs = sets.get(i);
@@ -90,7 +92,8 @@ public final class SpecLoader {
     }
 
     private static Specs.Cohort cohort(Section s, Path base) {
-        s.allowOnly(Set.of("subjects", "id", "group", "groups", "positive", "site", "covariates"));
+        s.allowOnly(Set.of("subjects", "id", "group", "groups", "positive", "site", "covariates",
+                "duplicate-threshold"));
         String subjects = s.text("subjects", null, s.node != null);
         String id = s.text("id", "subject", false);
         String group = s.text("group", "group", false);
@@ -110,8 +113,9 @@ public final class SpecLoader {
         }
         String site = s.text("site", null, false);
         List<String> covariates = s.textList("covariates", List.of());
+        double duplicates = s.number("duplicate-threshold", Specs.Cohort.DEFAULT_DUPLICATE_THRESHOLD, 0, 1);
         return new Specs.Cohort(subjects == null ? null : base.resolve(subjects).normalize(), id, group, groups,
-                positive, site, covariates);
+                positive, site, covariates, duplicates);
     }
 
     private static Specs.View view(Section views, String name, Path base, boolean required) {
@@ -149,7 +153,7 @@ public final class SpecLoader {
     }
 
     private static Specs.Features features(Section s, Specs.View source, Specs.View target) {
-        s.allowOnly(Set.of("extract", "scale"));
+        s.allowOnly(Set.of("extract", "scale", "select", "adjust", "harmonize"));
         List<String> extract = s.textList("extract", List.of("edges"));
         if (extract.isEmpty()) {
             s.problems.add(s.key("extract"), "give at least one extractor: " + String.join(", ", EXTRACTORS));

@@ -15,12 +15,22 @@ public final class Specs {
      * @param groups   allowed group labels; their order gives class indices
      * @param positive the group treated as positive in two-group metrics (null for three or more groups)
      * @param site     site column or null
+     * @param duplicateThreshold source-view correlation above which two subjects are reported as possible duplicates
      */
     public record Cohort(Path subjects, String id, String group, List<String> groups, String positive, String site,
-                         List<String> covariates) {
+                         List<String> covariates, double duplicateThreshold) {
+        /** The default of {@code cohort.duplicate-threshold}. */
+        public static final double DEFAULT_DUPLICATE_THRESHOLD = 0.999;
+
         public Cohort {
             groups = List.copyOf(groups);
             covariates = List.copyOf(covariates);
+        }
+
+        /** A cohort with the default duplicate threshold. */
+        public Cohort(Path subjects, String id, String group, List<String> groups, String positive, String site,
+                      List<String> covariates) {
+            this(subjects, id, group, groups, positive, site, covariates, DEFAULT_DUPLICATE_THRESHOLD);
         }
 
         public int positiveIndex() {
@@ -42,10 +52,36 @@ public final class Specs {
                        double tolerance) {
     }
 
-    /** How views become features. */
-    public record Features(List<String> extract, String scale) {
+    /**
+     * How views become features, and the steps fitted inside every fit, in this order: covariate adjustment,
+     * harmonization, scaling, selection.
+     *
+     * @param select    top-k selection, or null for none
+     * @param adjust    covariates regressed out of every feature (names from {@code cohort.covariates}); may be empty
+     * @param harmonize {@code combat} or null for none
+     */
+    public record Features(List<String> extract, String scale, Selection select, List<String> adjust,
+                           String harmonize) {
         public Features {
             extract = List.copyOf(extract);
+            adjust = List.copyOf(adjust);
+        }
+
+        /** Extraction and scaling only. */
+        public Features(List<String> extract, String scale) {
+            this(extract, scale, null, List.of(), null);
+        }
+    }
+
+    /**
+     * Keep the top k features by a score fitted on the training rows.
+     *
+     * @param method {@code t-test}, {@code anova} or {@code variance}
+     * @param keep   the k values; more than one is a grid searched together with the classifier's grid
+     */
+    public record Selection(String method, List<Integer> keep) {
+        public Selection {
+            keep = List.copyOf(keep);
         }
     }
 

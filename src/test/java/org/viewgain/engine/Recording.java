@@ -111,6 +111,37 @@ final class Recording implements Methods {
         };
     }
 
+    @Override
+    public Transform selector(String method, int keep) {
+        return recorded("selector", real.selector(method, keep), true);
+    }
+
+    @Override
+    public Transform covariateAdjuster(Map<String, double[]> covariatesById, List<String> names) {
+        return recorded("adjuster", real.covariateAdjuster(covariatesById, names), false);
+    }
+
+    @Override
+    public Transform harmonizer(String method, Map<String, String> siteById, Map<String, double[]> covariatesById) {
+        return recorded("harmonizer", real.harmonizer(method, siteById, covariatesById), false);
+    }
+
+    /** A step that records its fits (with labels when it uses them) and delegates. */
+    private Transform recorded(String kind, Transform d, boolean labels) {
+        return new Transform() {
+            @Override
+            public String name() {
+                return d.name();
+            }
+
+            @Override
+            public Fitted fit(FitContext ctx, Rows train, int[] y) {
+                fits.add(new Fit(kind, ctx, train.ids(), labels ? y.clone() : null));
+                return d.fit(ctx, train, y);
+            }
+        };
+    }
+
     List<Fit> all() {
         return new ArrayList<>(fits);
     }
