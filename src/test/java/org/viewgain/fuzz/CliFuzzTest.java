@@ -90,7 +90,7 @@ class CliFuzzTest {
         }
     }
 
-    @Property(tries = 150, seed = "7202", edgeCases = EdgeCasesMode.NONE)
+    @Property(tries = 100, seed = "7202", edgeCases = EdgeCasesMode.NONE)
     void givenMutatedCohortFiles_whenChecked_thenExit0Or2WithOneLineAndNoStackTrace(
             @ForAll("corpusSpecs") Path seed, @ForAll("edits") List<Edit> edits) {
         Path dir = freshCohort();
