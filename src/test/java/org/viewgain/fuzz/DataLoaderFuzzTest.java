@@ -97,7 +97,8 @@ class DataLoaderFuzzTest {
         Path f = dir.resolve("subjects.csv");
         Corpus.write(f, Edit.applyAll(seed, edits), rawFlip);
         List<String> covariates = withCovariate ? List.of("age") : List.of();
-        boolean loaded = Outcomes.loadsOrRefusesInOneLine(() -> SubjectsTable.load(f, "subject", "group", "site", covariates, GROUPS),
+        boolean loaded = Outcomes.loadsOrRefusesInOneLine(
+                () -> SubjectsTable.load(f, "subject", "group", "site", covariates, GROUPS),
                 f.toString());
         bothOutcomes(loaded);
     }
@@ -119,7 +120,8 @@ class DataLoaderFuzzTest {
             }
         }
         double tolerance = rawFlip < 0 ? 1e-6 : 0;
-        boolean loaded = Outcomes.loadsOrRefusesInOneLine(() -> ViewLoader.matrices("v", m.resolve("{subject}.csv"), IDS,
+        boolean loaded = Outcomes.loadsOrRefusesInOneLine(
+                () -> ViewLoader.matrices("v", m.resolve("{subject}.csv"), IDS,
                 missingAllowed, tolerance), m.toString());
         bothOutcomes(loaded);
     }
@@ -130,7 +132,8 @@ class DataLoaderFuzzTest {
             @ForAll boolean missingAllowed, @ForAll boolean namedId) {
         Path f = dir.resolve("table.csv");
         Corpus.write(f, Edit.applyAll(seed, edits), rawFlip);
-        boolean loaded = Outcomes.loadsOrRefusesInOneLine(() -> ViewLoader.edgeTable("v", f, namedId ? "subject" : null, IDS,
+        boolean loaded = Outcomes.loadsOrRefusesInOneLine(
+                () -> ViewLoader.edgeTable("v", f, namedId ? "subject" : null, IDS,
                 missingAllowed), f.toString());
         bothOutcomes(loaded);
     }

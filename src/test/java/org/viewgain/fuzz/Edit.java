@@ -59,7 +59,8 @@ record Edit(Op op, int at, int pick) {
         int p = s.isEmpty() ? 0 : at % s.length();
         switch (op) {
             case FLIP_CHAR:
-                return s.isEmpty() ? s : s.substring(0, p) + (char) (s.charAt(p) ^ (1 << (pick % 16))) + s.substring(p + 1);
+                return s.isEmpty() ? s
+                        : s.substring(0, p) + (char) (s.charAt(p) ^ (1 << (pick % 16))) + s.substring(p + 1);
             case DELETE_CHAR:
                 return s.isEmpty() ? s : s.substring(0, p) + s.substring(p + 1);
             case INSERT_TOKEN:

@@ -34,7 +34,8 @@ final class Shapes {
             "stratified-k-fold", "leave-one-out", "leave-site-out", "balanced-accuracy", "auc", "source+imputed",
             "source+target", "imputed", "edges", "strength", "standardize", "none", "cross-fitted", "observed",
             "control", "patient", "sqrt", "log2", "subjects.csv", "src.csv", "tgt.csv", "mats/{subject}.csv",
-            "{subject}", "../..", "/dev/null", "/", "", " ", "\u0000", "é", "日本", "a\nb", "weka.classifiers.trees.J48",
+            "{subject}", "../..", "/dev/null", "/", "", " ", "\u0000", "é", "日本", "a\nb",
+            "weka.classifiers.trees.J48",
             "java.lang.String", "-C 0.25", "-Q", "age", "NaN", "1e999");
 
     private Shapes() {
