@@ -27,7 +27,7 @@ final class EdgeTable {
         int idCol = idColumn == null ? 0 : header.cells().indexOf(idColumn);
         if (idCol < 0) {
             throw new BadInputException(file + ": no id column " + CsvText.show(idColumn)
-                    + "; the header has columns " + header.cells());
+                    + "; the header has columns " + CsvText.oneLine(header.cells().toString()));
         }
         List<String> names = new ArrayList<>();
         Set<String> seenNames = new HashSet<>();

@@ -111,7 +111,7 @@ public final class SubjectsTable {
         Integer c = name == null ? null : columns.get(name);
         if (c == null) {
             throw new BadInputException(ROLE + " " + csv + ": no " + what + " column " + CsvText.show(String.valueOf(name))
-                    + "; the header has columns " + columns.keySet());
+                    + "; the header has columns " + CsvText.oneLine(columns.keySet().toString()));
         }
         return c;
     }

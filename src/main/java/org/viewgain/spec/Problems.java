@@ -14,7 +14,7 @@ public final class Problems {
     }
 
     public void add(String path, String message) {
-        messages.add(where.at(path, message));
+        messages.add(where.at(path, message).replace("\r", "\\r").replace("\n", "\\n")); // one line per problem
     }
 
     /** Notes that an unknown key looks like a misspelling of {@code path}, so checks of that key stay quiet. */
