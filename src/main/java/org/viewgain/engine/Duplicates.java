@@ -27,13 +27,20 @@ public final class Duplicates {
     }
 
     /**
-     * All pairs with correlation strictly above {@code threshold}, ordered by {@code a} then {@code b}.
+     * Fewest features for which a correlation says anything about identity (two points always correlate +-1);
+     * common practice, no source.
+     */
+    public static final int MIN_FEATURES = 10;
+
+    /**
+     * All pairs with correlation strictly above {@code threshold}, ordered by {@code a} then {@code b}; none when
+     * the vectors have fewer than {@link #MIN_FEATURES} entries.
      *
      * @param rows one vector per subject, all of the same length (read only)
      */
     public static List<Pair> find(double[][] rows, double threshold) {
         int n = rows.length;
-        if (n < 2) {
+        if (n < 2 || rows[0].length < MIN_FEATURES) {
             return List.of();
         }
         float[][] z = new float[n][];

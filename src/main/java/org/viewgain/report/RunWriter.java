@@ -21,7 +21,9 @@ public final class RunWriter {
         folder.write("imputation.csv", ResultTables.imputation(res));
         folder.write("imputation_edges.csv", ResultTables.imputationEdges(res));
         folder.write("imputation_summary.csv", ResultTables.imputationSummary(res));
-        folder.write("comparisons.csv", SignificanceTables.comparisons(org.viewgain.engine.Comparisons.of(res)));
+        if (!org.viewgain.engine.ComparisonPairs.of(res.experiment()).isEmpty()) {
+            folder.write("comparisons.csv", SignificanceTables.comparisons(org.viewgain.engine.Comparisons.of(res)));
+        }
         if (!res.permutations().isEmpty()) {
             folder.write("permutations.csv", SignificanceTables.permutations(res.permutations()));
             folder.write("permutation_null.csv", SignificanceTables.permutationNull(res.permutations()));

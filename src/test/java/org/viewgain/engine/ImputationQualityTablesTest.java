@@ -70,7 +70,7 @@ class ImputationQualityTablesTest {
                 new RunResults.ImputationRow("avg", 0, 0, 1, 3, 4, nan, nan, 0, new double[] {0, 3, 6}),
                 new RunResults.ImputationRow("avg", 0, 1, 2, 5, 6, 0.1, nan, 0, new double[] {5, 5, 5}),
                 new RunResults.ImputationRow("ridge", 0, 2, 3, 1, 1, 0.9, nan, 0.75, new double[] {2, 1, 0}));
-        RunResults res = new RunResults(ex, ex.plan(), List.of(), List.of(), rows);
+        RunResults res = new RunResults(ex, ex.plan(), List.of(), List.of(), rows, List.of(), List.of());
         List<String> summary = lines(ResultTables.imputationSummary(res));
         assertEquals("imputer,n_subject_folds,n_folds,mae_mean,mae_sd,rmse_mean,pearson_r_mean,strength_mae_mean,"
                 + "skill_mean", summary.get(0));

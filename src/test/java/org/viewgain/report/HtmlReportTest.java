@@ -116,6 +116,7 @@ class HtmlReportTest {
     void givenNoComparisons_whenReported_thenAnswerShowsMetricsEstimatesAndSaysTestsWereNotComputed()
             throws IOException {
         Path r = ReportFixtures.copy(run, dir.resolve("plain"));
+        Files.deleteIfExists(r.resolve("comparisons.csv"));
         Document doc = Jsoup.parse(HtmlReport.render(r, false));
         CsvRows metrics = CsvRows.readIfPresent(r, "metrics.csv");
         assertTrue(doc.getElementById("answer").text().contains("Not computed in this run: paired comparisons"));
@@ -172,6 +173,10 @@ class HtmlReportTest {
     @Test
     void givenOptionalTablesAbsent_whenReported_thenEachSaysNotComputedAndNothingFails() throws IOException {
         Path r = ReportFixtures.copy(run, dir.resolve("bare"));
+        for (String optional : List.of("comparisons.csv", "permutations.csv", "permutation_null.csv", "importance.csv",
+                "imputation_edges.csv")) {
+            Files.deleteIfExists(r.resolve(optional)); // a run of an older version, or with nothing to compare
+        }
         Files.delete(r.resolve("fold_metrics.csv"));
         Files.delete(r.resolve("hyperparameters.csv"));
         String text = Jsoup.parse(HtmlReport.render(r, false)).text();
