@@ -28,6 +28,7 @@ public final class RunWriter {
             folder.write("permutations.csv", SignificanceTables.permutations(res.permutations()));
             folder.write("permutation_null.csv", SignificanceTables.permutationNull(res.permutations()));
         }
+        folder.write("separation.csv", SignificanceTables.separation(org.viewgain.engine.Separation.of(res)));
         folder.write("confusion.csv", ResultTables.confusion(res));
         folder.write("importance.csv", ResultTables.importance(
                 org.viewgain.engine.Importance.rows(res.experiment(), res.importance())));

@@ -47,4 +47,13 @@ public final class SignificanceTables {
         }
         return t;
     }
+
+    public static CsvTable separation(List<org.viewgain.engine.Separation.Row> rows) {
+        CsvTable t = new CsvTable("feature_set", "imputer", "n", "pseudo_f", "p_value", "permutations");
+        for (org.viewgain.engine.Separation.Row r : rows) {
+            t.row().text(r.featureSet()).text(r.imputer()).integer(r.n()).number(r.pseudoF()).number(r.pValue())
+                    .integer(r.permutations());
+        }
+        return t;
+    }
 }

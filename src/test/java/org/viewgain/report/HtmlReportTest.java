@@ -174,6 +174,7 @@ class HtmlReportTest {
     void givenOptionalTablesAbsent_whenReported_thenEachSaysNotComputedAndNothingFails() throws IOException {
         Path r = ReportFixtures.copy(run, dir.resolve("bare"));
         for (String optional : List.of("comparisons.csv", "permutations.csv", "permutation_null.csv", "importance.csv",
+                "separation.csv",
                 "imputation_edges.csv")) {
             Files.deleteIfExists(r.resolve(optional)); // a run of an older version, or with nothing to compare
         }
