@@ -86,8 +86,8 @@ final class CsvText {
                 }
             }
         } catch (IOException | UncheckedIOException | IllegalStateException e) {
-            throw new BadInputException(role + " " + file + ": malformed CSV after line " + linesBefore + ": "
-                    + oneLine(e.getMessage()), e);
+            throw new BadInputException(role + " " + file + ": malformed CSV near line " + (linesBefore + 1) + ": "
+                    + oneLine(e.getMessage()).replaceAll("(?:[a-z_$][\\w$]*\\.)+[A-Z][\\w$]*(?:Exception|Error):\\s*", ""), e);
         }
         return rows;
     }

@@ -113,8 +113,8 @@ final class ExternalImputations {
         } catch (CharacterCodingException e) {
             throw new BadInputException("external imputations file " + file + " is not UTF-8 text", e);
         } catch (IOException | UncheckedIOException | IllegalStateException e) {
-            throw new BadInputException(file + ": malformed CSV after line " + linesBefore + ": "
-                    + oneLine(e.getMessage()), e);
+            throw new BadInputException(file + ": malformed CSV near line " + (linesBefore + 1) + ": "
+                    + oneLine(e.getMessage()).replaceAll("(?:[a-z_$][\\w$]*\\.)+[A-Z][\\w$]*(?:Exception|Error):\\s*", ""), e);
         }
     }
 
