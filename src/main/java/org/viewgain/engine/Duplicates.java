@@ -186,27 +186,8 @@ public final class Duplicates {
         return z;
     }
 
-    /** Pearson correlation in double precision. */
+    /** Pearson correlation in double precision (NaN for a constant vector). */
     static double correlation(double[] x, double[] y) {
-        int p = x.length;
-        double mx = 0;
-        double my = 0;
-        for (int k = 0; k < p; k++) {
-            mx += x[k];
-            my += y[k];
-        }
-        mx /= p;
-        my /= p;
-        double sxy = 0;
-        double sxx = 0;
-        double syy = 0;
-        for (int k = 0; k < p; k++) {
-            double dx = x[k] - mx;
-            double dy = y[k] - my;
-            sxy += dx * dy;
-            sxx += dx * dx;
-            syy += dy * dy;
-        }
-        return sxy / Math.sqrt(sxx * syy);
+        return org.viewgain.imputation.ImputationQuality.pearsonR(x, y);
     }
 }

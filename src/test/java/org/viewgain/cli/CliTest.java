@@ -1,17 +1,15 @@
 package org.viewgain.cli;
 
+import org.viewgain.testing.CliRunner;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.IOException;
-import java.io.PrintWriter;
-import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
-import picocli.CommandLine;
 
 /** Exit codes and messages of the command line. */
 class CliTest {
@@ -22,13 +20,8 @@ class CliTest {
     }
 
     static Outcome run(String... args) {
-        CommandLine cl = Main.commandLine();
-        StringWriter out = new StringWriter();
-        StringWriter err = new StringWriter();
-        cl.setOut(new PrintWriter(out));
-        cl.setErr(new PrintWriter(err));
-        int code = cl.execute(args);
-        return new Outcome(code, out.toString(), err.toString());
+        CliRunner.Outcome o = CliRunner.run(args);
+        return new Outcome(o.code(), o.out(), o.err());
     }
 
     Path cohort() throws IOException {

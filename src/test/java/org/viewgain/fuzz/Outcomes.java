@@ -1,15 +1,12 @@
 package org.viewgain.fuzz;
 
+import org.viewgain.testing.CliRunner;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertNotNull;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.io.PrintWriter;
-import java.io.StringWriter;
 import java.util.List;
-import org.viewgain.cli.Main;
 import org.viewgain.spec.BadInputException;
-import picocli.CommandLine;
 
 /**
  * The property every fuzzed input must satisfy: it loads, or it is refused with a {@link BadInputException} whose
@@ -65,13 +62,8 @@ final class Outcomes {
 
     /** Runs the command line in-process, capturing its output (as the CLI tests do). */
     static Cli cli(String... args) {
-        CommandLine cl = Main.commandLine();
-        StringWriter out = new StringWriter();
-        StringWriter err = new StringWriter();
-        cl.setOut(new PrintWriter(out));
-        cl.setErr(new PrintWriter(err));
-        int code = cl.execute(args);
-        return new Cli(code, out.toString(), err.toString());
+        CliRunner.Outcome o = CliRunner.run(args);
+        return new Cli(o.code(), o.out(), o.err());
     }
 
     /**

@@ -1,8 +1,7 @@
 package org.viewgain.report;
 
+import org.viewgain.testing.CliRunner;
 import java.io.IOException;
-import java.io.PrintWriter;
-import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -11,9 +10,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Set;
 import java.util.stream.Stream;
-import org.viewgain.cli.Main;
 import org.viewgain.testing.TestCohorts;
-import picocli.CommandLine;
 
 /**
  * A small real run made through the command line on an invented cohort, and hand-written optional tables
@@ -28,13 +25,8 @@ final class ReportFixtures {
 
     /** Runs the command line with captured output. */
     static Outcome cli(String... args) {
-        CommandLine cl = Main.commandLine();
-        StringWriter out = new StringWriter();
-        StringWriter err = new StringWriter();
-        cl.setOut(new PrintWriter(out));
-        cl.setErr(new PrintWriter(err));
-        int code = cl.execute(args);
-        return new Outcome(code, out.toString(), err.toString());
+        CliRunner.Outcome o = CliRunner.run(args);
+        return new Outcome(o.code(), o.out(), o.err());
     }
 
     /** A finished run of a 40-subject invented cohort (two classifiers, one imputer); returns its run folder. */
