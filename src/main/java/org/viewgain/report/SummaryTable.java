@@ -37,7 +37,8 @@ public final class SummaryTable {
             }
             b.append('\n');
         }
-        b.append("(mean over repeats, \u00b1 standard deviation over repeats; not a confidence interval)\n");
+        b.append("(mean over repeats [interval at significance.confidence, 95% by default: Wilson for proportions,"
+                + " DeLong for AUC, bootstrap for balanced accuracy]; details in metrics.csv and report.html)\n");
         return b.toString();
     }
 
@@ -45,8 +46,8 @@ public final class SummaryTable {
         if (r == null || Double.isNaN(r.estimate())) {
             return "-";
         }
-        return Double.isNaN(r.sdOverRepeats()) ? String.format(Locale.ROOT, "%.3f", r.estimate())
-                : String.format(Locale.ROOT, "%.3f \u00b1 %.3f", r.estimate(), r.sdOverRepeats());
+        return Double.isNaN(r.ciLow()) ? String.format(Locale.ROOT, "%.3f", r.estimate())
+                : String.format(Locale.ROOT, "%.3f [%.2f, %.2f]", r.estimate(), r.ciLow(), r.ciHigh());
     }
 
     private static String pad(String s, int w) {
