@@ -143,6 +143,12 @@ public final class Journal implements Closeable {
         return j;
     }
 
+    /** An identity as it reads back from a journal (numbers and maps as JSON reads them), for comparisons. */
+    public static Map<String, Object> normalize(Map<String, Object> identity) {
+        return JSON.convertValue(tree(identity), JSON.getTypeFactory().constructMapType(LinkedHashMap.class,
+                String.class, Object.class));
+    }
+
     /** The identity as it reads back from the file, so numbers compare equal whatever their Java type. */
     private static JsonNode tree(Map<String, Object> identity) {
         try {
