@@ -138,7 +138,11 @@ final class RunCommand implements Callable<Integer> {
             cl.getOut().flush();
             return 0;
         }
-        return finish(cl, ex, folder, prov, results, start);
+        try {
+            return finish(cl, ex, folder, prov, results, start);
+        } catch (IOException | RuntimeException e) {
+            return Failure.report(cl, common, folder, prov, e); // e.g. disk full while writing the tables
+        }
     }
 
     static Provenance provenance(CommandLine cl, Experiment ex, Common common) throws IOException {

@@ -43,6 +43,8 @@ public final class Journal implements Closeable {
     private final Map<String, JsonNode> units;
     private final FileChannel channel;
     private Sink sink;
+    private long goodBytes;
+    private IOException failure;
 
     private Journal(Path file, JsonNode identity, Map<String, JsonNode> units, FileChannel channel) {
         this.file = file;
@@ -93,8 +95,6 @@ public final class Journal implements Closeable {
         ch.force(true);
         return new Journal(file, read.identity, read.units, ch);
     }
-
-    private long goodBytes;
 
     /** Reads a journal without writing to it. */
     public static Journal read(Path file) throws IOException {
@@ -263,12 +263,17 @@ public final class Journal implements Closeable {
         if (units.containsKey(key)) {
             return;
         }
+        if (failure != null) {
+            // after a failed write nothing more is appended, so a torn line can only be the last one
+            throw new UncheckedIOException(failure.getMessage(), failure);
+        }
         if (sink == null) {
-            throw new IllegalStateException("journal " + file + " is read only");
+            throw new IllegalStateException("journal " + file + " is read only or closed");
         }
         try {
             sink.write(line(rec));
         } catch (IOException e) {
+            failure = e;
             throw new UncheckedIOException("cannot write the journal " + file + ": " + e.getMessage(), e);
         }
         units.put(key, rec);
@@ -290,8 +295,10 @@ public final class Journal implements Closeable {
         this.sink = s;
     }
 
+    /** Stops appending (units finishing later in other threads are not written) and closes the file. */
     @Override
-    public void close() throws IOException {
+    public synchronized void close() throws IOException {
+        sink = null;
         if (channel != null) {
             channel.close();
         }
