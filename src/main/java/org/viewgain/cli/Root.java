@@ -8,8 +8,8 @@ import picocli.CommandLine.Command;
 @Command(name = "viewgain", mixinStandardHelpOptions = true, versionProvider = Root.Version.class,
         description = "Does an imputed brain-network view help tell diagnostic groups apart? Leak-free nested "
                 + "cross-validated experiments from a spec file. For research use only, not for diagnosis.",
-        subcommands = {CheckCommand.class, RunCommand.class, FoldsCommand.class, ReportCommand.class,
-            DemoCommand.class, CommandLine.HelpCommand.class},
+        subcommands = {CheckCommand.class, RunCommand.class, MergeCommand.class, SlurmCommand.class, FoldsCommand.class,
+            ReportCommand.class, DemoCommand.class, CommandLine.HelpCommand.class},
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {"0:success", "1:the run failed", "2:bad usage, spec or data"})
 public final class Root implements Runnable {
@@ -18,7 +18,8 @@ public final class Root implements Runnable {
 
     @Override
     public void run() {
-        throw new CommandLine.ParameterException(spec.commandLine(), "say which command to run (check, run, folds, report, demo)");
+        throw new CommandLine.ParameterException(spec.commandLine(),
+                "say which command to run (check, run, merge, slurm, folds, report, demo)");
     }
 
     /** Reads the version from the jar manifest (the same string goes into run.json). */

@@ -6,20 +6,24 @@ import java.nio.file.Path;
 import java.time.Duration;
 import java.time.Instant;
 import java.util.List;
+import java.util.Map;
 import java.util.concurrent.Callable;
 import org.viewgain.cohort.Subject;
 import org.viewgain.engine.ComparisonPairs;
 import org.viewgain.engine.Evaluation;
 import org.viewgain.engine.Experiment;
+import org.viewgain.engine.Journal;
 import org.viewgain.engine.Progress;
 import org.viewgain.engine.RunResults;
 import org.viewgain.engine.Runner;
 import org.viewgain.engine.Setup;
+import org.viewgain.engine.Shard;
 import org.viewgain.report.HtmlReport;
 import org.viewgain.report.Provenance;
 import org.viewgain.report.RunFolder;
 import org.viewgain.report.RunWriter;
 import org.viewgain.report.SummaryTable;
+import org.viewgain.spec.BadInputException;
 import org.viewgain.spec.SpecLoader;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
@@ -27,15 +31,24 @@ import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 
-/** {@code viewgain run SPEC}: runs an experiment and writes a new results folder. */
+/** {@code viewgain run SPEC}: runs an experiment and writes a new results folder (or resumes one, or a shard). */
 @Command(name = "run", mixinStandardHelpOptions = true, versionProvider = Root.Version.class,
-        description = "Run the experiment of a spec; write results/<experiment>/<run-id>/ and print a summary.")
+        description = "Run the experiment of a spec; write results/<experiment>/<run-id>/ and print a summary. "
+                + "Every finished unit is journaled: continue a stopped run with --resume RUN_DIR.")
 final class RunCommand implements Callable<Integer> {
-    @Parameters(index = "0", paramLabel = "SPEC", description = "The experiment spec (YAML).")
+    @Parameters(index = "0", arity = "0..1", paramLabel = "SPEC", description = "The experiment spec (YAML).")
     Path spec;
 
     @Option(names = "--out", paramLabel = "DIR", description = "Root folder of results (default: ${DEFAULT-VALUE}).")
     Path out = Path.of("results");
+
+    @Option(names = "--resume", paramLabel = "RUN_DIR",
+            description = "Finish a run that stopped (killed, crashed, out of time): skip the units in its journal.")
+    Path resume;
+
+    @Option(names = "--shard", paramLabel = "I/N",
+            description = "Run only shard I of N (a cluster job); writes DIR/shard-I-of-N/; join with 'merge'.")
+    String shard;
 
     @Mixin
     Common common;
@@ -45,41 +58,105 @@ final class RunCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws IOException {
-        return execute(cs.commandLine(), spec, out, common);
+        CommandLine cl = cs.commandLine();
+        if (resume != null) {
+            if (spec != null || shard != null) {
+                throw new CommandLine.ParameterException(cl, "--resume takes the run folder only, not SPEC or --shard");
+            }
+            Map<String, Object> old = Provenance.read(RunFolder.existing(resume).dir().resolve("run.json"));
+            if ("complete".equals(old.get("status"))) {
+                throw new BadInputException(resume + " is already complete; nothing to resume");
+            }
+            Object file = old.get("spec_file");
+            Object sh = old.get("shard");
+            return execute(cl, Path.of(String.valueOf(file)), null, common,
+                    sh == null ? null : Shard.parse(sh.toString()), resume, old);
+        }
+        if (spec == null) {
+            throw new CommandLine.ParameterException(cl, "give a SPEC to run, or --resume RUN_DIR");
+        }
+        return execute(cl, spec, out, common, shard == null ? null : Shard.parse(shard), null, null);
     }
 
-    /** Runs one spec; shared with the demo command. */
+    /** Runs one spec into a new folder; shared with the demo command. */
     static int execute(CommandLine cl, Path specFile, Path outRoot, Common common) throws IOException {
+        return execute(cl, specFile, outRoot, common, null, null, null);
+    }
+
+    private static int execute(CommandLine cl, Path specFile, Path outRoot, Common common, Shard shard,
+                               Path resumeDir, Map<String, Object> old) throws IOException {
         if (common.threads() < 1) {
             throw new CommandLine.ParameterException(cl, "--threads must be at least 1, got " + common.threads());
         }
-        PrintWriter out = cl.getOut();
         PrintWriter err = cl.getErr();
         Experiment ex = Setup.prepare(SpecLoader.load(specFile));
         ComparisonPairs.of(ex); // names in significance.compare are checked before anything is written
         err.print(org.viewgain.report.CheckReport.duplicateWarning(ex));
         err.flush();
         Instant start = Instant.now();
-        RunFolder folder = RunFolder.create(outRoot, ex.spec().experiment(), start);
-        List<String> ids = ex.data().subjects().stream().map(Subject::id).toList();
-        Provenance prov = new Provenance(ex.spec(), ids, common.threads(),
-                cl.getParseResult() == null ? List.of() : cl.getParseResult().originalArgs(), start.toString());
+        Provenance prov = provenance(cl, ex, common);
+        Map<String, Object> identity = prov.identity(shard == null ? null : shard.label());
+        RunFolder folder;
+        Journal journal;
+        if (resumeDir != null) {
+            folder = RunFolder.existing(resumeDir);
+            journal = Journal.resume(folder.dir().resolve(Journal.FILE), identity);
+            prov.put("started_at", old.get("started_at")).put("resumed_at", start.toString());
+        } else {
+            folder = shard == null ? RunFolder.create(outRoot, ex.spec().experiment(), start)
+                    : RunFolder.createAt(outRoot.resolve("shard-" + shard.index() + "-of-" + shard.count()));
+            journal = Journal.create(folder.dir().resolve(Journal.FILE), identity);
+        }
+        if (shard != null) {
+            prov.put("shard", shard.label());
+        }
         folder.writeText("run.json", prov.toJson());
         if (!common.quiet) {
             err.println("[viewgain] " + ex.pipelines().size() + " pipelines, " + ex.modelFits() + " model fits, "
-                    + common.threads() + " thread(s); writing " + folder.dir());
+                    + common.threads() + " thread(s)" + (shard == null ? "" : ", shard " + shard.label())
+                    + (journal.size() > 0 ? ", " + journal.size() + " units already done" : "") + "; writing "
+                    + folder.dir());
             err.flush();
         }
         Progress progress = common.quiet ? Progress.NONE : new ProgressLine(err);
-        RunResults results;
-        try {
-            results = new Runner(ex, common.threads(), progress).run();
+        RunResults results = null;
+        try (journal) {
+            Runner runner = new Runner(ex, common.threads(), progress).journal(journal);
+            if (shard != null) {
+                runner.runShard(shard);
+            } else {
+                results = runner.run();
+            }
         } catch (RuntimeException | Error e) {
-            prov.put("status", "failed").put("error", String.valueOf(e.getMessage()))
-                    .put("finished_at", Instant.now().toString());
-            folder.writeText("run.json", prov.toJson());
-            throw e;
+            return Failure.report(cl, common, folder, prov, e);
         }
+        if (shard != null) {
+            prov.put("status", "complete").put("finished_at", Instant.now().toString())
+                    .put("units", journal.size());
+            folder.writeText("run.json", prov.toJson());
+            cl.getOut().println("shard " + shard.label() + ": " + journal.size() + " units in " + folder.dir());
+            cl.getOut().flush();
+            return 0;
+        }
+        try {
+            return finish(cl, ex, folder, prov, results, start);
+        } catch (IOException | RuntimeException e) {
+            return Failure.report(cl, common, folder, prov, e); // e.g. disk full while writing the tables
+        }
+    }
+
+    static Provenance provenance(CommandLine cl, Experiment ex, Common common) throws IOException {
+        List<String> ids = ex.data().subjects().stream().map(Subject::id).toList();
+        return new Provenance(ex.spec(), ids, common.threads(),
+                cl.getParseResult() == null ? List.of() : cl.getParseResult().originalArgs(),
+                Instant.now().toString());
+    }
+
+    /** Writes the tables, run.json (complete) and the report of finished results; prints the summary. */
+    static int finish(CommandLine cl, Experiment ex, RunFolder folder, Provenance prov, RunResults results,
+                      Instant start) throws IOException {
+        PrintWriter out = cl.getOut();
+        PrintWriter err = cl.getErr();
         List<Evaluation.MetricRow> metrics = Evaluation.metrics(results);
         Instant end = Instant.now();
         prov.put("finished_at", end.toString())

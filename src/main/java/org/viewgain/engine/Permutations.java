@@ -18,10 +18,31 @@ import org.viewgain.stats.SequentialStop;
 final class Permutations {
     private final Experiment ex;
     private final Runner.State state;
+    private final Known known;
+    private final Record record;
+    private final Runnable ready;
 
-    Permutations(Experiment ex, Runner.State state) {
+    /** A statistic already computed (journaled), or null. */
+    interface Known {
+        Double get(int pipeline, int k);
+    }
+
+    /** Keeps a statistic just computed. */
+    interface Record {
+        void put(int pipeline, int k, double statistic);
+    }
+
+    /**
+     * @param known  statistics already journaled, consumed in order before anything is computed
+     * @param record receives every computed statistic
+     * @param ready  makes {@code state} ready (phase one) before the first statistic is computed
+     */
+    Permutations(Experiment ex, Runner.State state, Known known, Record record, Runnable ready) {
         this.ex = ex;
         this.state = state;
+        this.known = known;
+        this.record = record;
+        this.ready = ready;
     }
 
     /** Runs the test for every pipeline; {@code observed} is each pipeline's metric on the real labels. */
@@ -42,6 +63,23 @@ final class Permutations {
         }
         int batch = Math.max(2, 2 * state.threads());
         while (anyActive(active)) {
+            for (int p = 0; p < pipelines; p++) {
+                Double v;
+                while (active[p] && (v = known.get(p, next[p])) != null) {
+                    values[p][next[p]] = v;
+                    stop[p] = stop[p].next(v);
+                    next[p]++;
+                    counter.done();
+                    if (stop[p].stopped()) {
+                        active[p] = false;
+                        counter.shrink(n - next[p]);
+                    }
+                }
+            }
+            if (!anyActive(active)) {
+                break;
+            }
+            ready.run();
             List<int[]> jobs = new ArrayList<>();
             int activeCount = (int) java.util.stream.IntStream.range(0, pipelines).filter(p -> active[p]).count();
             int per = Math.max(1, (int) Math.ceil(batch / (double) activeCount));
@@ -54,6 +92,7 @@ final class Permutations {
             for (int[] job : jobs) {
                 tasks.add(() -> {
                     double v = statistic(ex.pipelines().get(job[0]), job[1] + 1, sig.metric());
+                    record.put(job[0], job[1], v);
                     counter.done();
                     return v;
                 });

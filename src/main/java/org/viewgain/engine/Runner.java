@@ -1,8 +1,13 @@
 package org.viewgain.engine;
 
+import com.fasterxml.jackson.databind.JsonNode;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Map;
+import java.util.Set;
+import java.util.TreeSet;
 import java.util.concurrent.Callable;
+import java.util.concurrent.ConcurrentHashMap;
 import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
@@ -14,12 +19,17 @@ import org.viewgain.folds.FoldPlan;
  * Runs an experiment as independent work units on a thread pool. Phase one fits every imputer in every outer fold
  * (label-free work, done once and shared by all pipelines and permutations); phase two trains and tests every
  * pipeline in every outer fold; phase three, when the spec asks for it, runs the label permutation test. Results are
- * gathered in unit order, so they do not depend on the number of threads.
+ * gathered in unit order, so they do not depend on the number of threads. With a {@link Journal} every finished
+ * unit of phases two and three is journaled and units already there are skipped, so a killed run resumes where it
+ * stopped; with a {@link Shard} only a share of the units runs (for a cluster job array).
  */
 public final class Runner {
     private final Experiment ex;
     private final int threads;
     private final Progress progress;
+    private final Map<String, Object> done = new ConcurrentHashMap<>();
+    private Journal journal;
+    private UnitCodec codec;
 
     public Runner(Experiment ex, int threads, Progress progress) {
         this.ex = ex;
@@ -96,8 +106,101 @@ public final class Runner {
                 + (long) ex.spec().significance().permutations() * ex.pipelines().size();
     }
 
-    /** Runs everything. */
+    /**
+     * Journals every finished unit and skips units already in the journal (resume). Without a journal nothing is
+     * written and every unit runs.
+     */
+    public Runner journal(Journal j) {
+        this.journal = j;
+        this.codec = new UnitCodec(ex);
+        return this;
+    }
+
+    /** Runs everything (skipping units already journaled) and returns the results. */
     public RunResults run() {
+        return execute(null);
+    }
+
+    /**
+     * Runs only the units a shard owns, every planned permutation of its share without early stopping, and journals
+     * them; the merged journals give the results of a single run (see {@link #run()}).
+     */
+    public void runShard(Shard shard) {
+        if (journal == null) {
+            throw new IllegalStateException("a shard needs a journal");
+        }
+        execute(shard);
+    }
+
+    /** Keys of every unit a shard owns (all units for a whole run, {@code shard} null). */
+    public List<String> unitKeys(Shard shard) {
+        List<String> out = new ArrayList<>();
+        int slots = slotCount();
+        if (anyImputed()) {
+            for (int s = 0; s < slots; s++) {
+                for (int m = 0; m < ex.imputers().size(); m++) {
+                    if (shard == null || shard.owns((long) s * ex.imputers().size() + m)) {
+                        out.add(UnitCodec.imputerKey(s, m));
+                    }
+                }
+            }
+        }
+        int pipelines = ex.pipelines().size();
+        for (int s = 0; s < slots; s++) {
+            for (int pi = 0; pi < pipelines; pi++) {
+                if (shard == null || shard.owns((long) s * pipelines + pi)) {
+                    out.add(UnitCodec.classifierKey(s, pi));
+                }
+            }
+        }
+        if (shard != null) {
+            for (int pi = 0; pi < pipelines; pi++) {
+                for (int k = 0; k < ex.spec().significance().permutations(); k++) {
+                    if (shard.owns(k)) {
+                        out.add(UnitCodec.permutationKey(pi, k));
+                    }
+                }
+            }
+        }
+        return out;
+    }
+
+    private int slotCount() {
+        int n = 0;
+        for (int r = 0; r < ex.plan().repeats(); r++) {
+            n += ex.plan().folds(r);
+        }
+        return n;
+    }
+
+    private Object known(String key) {
+        Object v = done.get(key);
+        if (v == null && journal != null) {
+            JsonNode rec = journal.unit(key);
+            if (rec != null) {
+                v = switch (key.charAt(0)) {
+                    case 'i' -> codec.imputer(rec);
+                    case 'c' -> codec.classifier(rec);
+                    default -> UnitCodec.permutation(rec);
+                };
+                done.put(key, v);
+            }
+        }
+        return v;
+    }
+
+    private void record(String key, Object value) {
+        if (journal != null) {
+            journal.append(switch (key.charAt(0)) {
+                case 'i' -> codec.imputer(key, (UnitCodec.ImputerSummary) value);
+                case 'c' -> codec.classifier(key, (ClassifierStage.Output) value);
+                default -> codec.permutation(key, (Double) value);
+            });
+        }
+        done.put(key, value);
+    }
+
+    private RunResults execute(Shard shard) {
         FoldPlan plan = ex.plan();
         Counter counter = new Counter(units());
         ExecutorService pool = Executors.newFixedThreadPool(threads, r -> {
@@ -116,39 +219,66 @@ public final class Runner {
             for (int[] rf : state.folds) {
                 state.innerOf[rf[2]] = InnerFolds.of(ex, rf[0], rf[1]);
             }
-            // phase one: imputations
             state.imputed = new ImputedFold[state.folds.size()][ex.imputers().size()];
-            if (anyImputed()) {
-                ImputationStage stage = new ImputationStage(ex);
-                List<Callable<Void>> tasks = new ArrayList<>();
-                for (int[] rf : state.folds) {
-                    for (int m = 0; m < ex.imputers().size(); m++) {
-                        final int mm = m;
-                        tasks.add(() -> {
-                            state.imputed[rf[2]][mm] = stage.run(ex.imputers().get(mm), 0, rf[0], rf[1],
-                                    state.innerOf[rf[2]]);
+            List<String> mine = unitKeys(shard);
+            Set<Integer> needed = new TreeSet<>();
+            boolean allSlots = false;
+            for (String key : mine) {
+                if (known(key) != null) {
+                    counter.done();
+                } else if (key.charAt(0) == 'p') {
+                    allSlots = true;
+                } else {
+                    needed.add(Integer.parseInt(key.split("/")[1]));
+                }
+            }
+            // phase one: imputations, label-free, recomputed for the folds still to run (never journaled)
+            if (allSlots) {
+                needed.clear();
+                state.folds.forEach(rf -> needed.add(rf[2]));
+            }
+            impute(state, needed, pool, shard);
+            // phase two: pipelines
+            ClassifierStage stage = new ClassifierStage(ex);
+            List<Callable<Void>> tasks = new ArrayList<>();
+            for (String key : mine) {
+                if (key.charAt(0) != 'c' || known(key) != null) {
+                    continue;
+                }
+                String[] parts = key.split("/");
+                int[] rf = state.folds.get(Integer.parseInt(parts[1]));
+                Pipeline p = ex.pipelines().get(Integer.parseInt(parts[2]));
+                int m = p.featureSet().needsImputer() ? state.imputerIndex(p.imputer()) : -1;
+                tasks.add(() -> {
+                    record(key, stage.run(p, 0, rf[0], rf[1], state.innerOf[rf[2]],
+                            m < 0 ? null : state.imputed[rf[2]][m], ex.data().y()));
+                    counter.done();
+                    return null;
+                });
+            }
+            invokeAll(pool, tasks);
+            Permutations perm = new Permutations(ex, state, (p, k) -> (Double) known(UnitCodec.permutationKey(p, k)),
+                    (p, k, v) -> record(UnitCodec.permutationKey(p, k), v), () -> impute(state,
+                    allFolds(state), pool, null));
+            if (shard != null) {
+                List<Callable<Void>> perms = new ArrayList<>();
+                String metric = ex.spec().significance().metric();
+                for (String key : mine) {
+                    if (key.charAt(0) == 'p' && known(key) == null) {
+                        String[] parts = key.split("/");
+                        int pi = Integer.parseInt(parts[1]);
+                        int k = Integer.parseInt(parts[2]);
+                        perms.add(() -> {
+                            record(key, perm.statistic(ex.pipelines().get(pi), k + 1, metric));
                             counter.done();
                             return null;
                         });
                     }
                 }
-                invokeAll(pool, tasks);
+                invokeAll(pool, perms);
+                return null;
             }
-            // phase two: pipelines
-            ClassifierStage stage = new ClassifierStage(ex);
-            List<Callable<ClassifierStage.Output>> tasks = new ArrayList<>();
-            for (int[] rf : state.folds) {
-                for (Pipeline p : ex.pipelines()) {
-                    int m = p.featureSet().needsImputer() ? state.imputerIndex(p.imputer()) : -1;
-                    tasks.add(() -> {
-                        ClassifierStage.Output o = stage.run(p, 0, rf[0], rf[1], state.innerOf[rf[2]],
-                                m < 0 ? null : state.imputed[rf[2]][m], ex.data().y());
-                        counter.done();
-                        return o;
-                    });
-                }
-            }
-            RunResults res = collect(state, invokeAll(pool, tasks));
+            RunResults res = collect(state);
             // phase three: permutation test
             if (ex.spec().significance().permutations() > 0) {
                 String metric = ex.spec().significance().metric().replace('-', '_');
@@ -160,9 +290,7 @@ public final class Runner {
                     }
                     observed.add(sum / plan.repeats());
                 }
-                List<PermutationResult> perms = new Permutations(ex, state).run(observed,
-                        t -> invokeAll(pool, t), counter);
-                res = res.withPermutations(perms);
+                res = res.withPermutations(perm.run(observed, t -> invokeAll(pool, t), counter));
             }
             return res;
         } finally {
@@ -170,23 +298,63 @@ public final class Runner {
         }
     }
 
-    private RunResults collect(State state, List<ClassifierStage.Output> outputs) {
+    private static Set<Integer> allFolds(State state) {
+        Set<Integer> all = new TreeSet<>();
+        state.folds.forEach(rf -> all.add(rf[2]));
+        return all;
+    }
+
+    /** Fits the imputers in the given folds unless done already, recording the summaries this run owns. */
+    private void impute(State state, Set<Integer> slots, ExecutorService pool, Shard shard) {
+        if (!anyImputed()) {
+            return;
+        }
+        ImputationStage stage = new ImputationStage(ex);
+        List<Callable<Void>> tasks = new ArrayList<>();
+        for (int slot : slots) {
+            int[] rf = state.folds.get(slot);
+            for (int m = 0; m < ex.imputers().size(); m++) {
+                if (state.imputed[slot][m] != null) {
+                    continue;
+                }
+                final int mm = m;
+                String key = UnitCodec.imputerKey(slot, m);
+                boolean owned = shard == null || shard.owns((long) slot * ex.imputers().size() + m);
+                tasks.add(() -> {
+                    ImputedFold fi = stage.run(ex.imputers().get(mm), 0, rf[0], rf[1], state.innerOf[slot]);
+                    state.imputed[slot][mm] = fi;
+                    if (owned && known(key) == null) {
+                        record(key, summary(rf, mm, fi));
+                    }
+                    return null;
+                });
+            }
+        }
+        invokeAll(pool, tasks);
+    }
+
+    private UnitCodec.ImputerSummary summary(int[] rf, int m, ImputedFold fi) {
+        Resolved.Imputer imp = ex.imputers().get(m);
+        List<RunResults.ImputationRow> quality = new ArrayList<>();
+        for (ImputedFold.Quality q : fi.quality()) {
+            quality.add(new RunResults.ImputationRow(imp.name(), rf[0], rf[1], q.subject(), q.mae(), q.rmse(),
+                    q.pearsonR(), q.strengthMae(), q.skill(), q.absError()));
+        }
+        return new UnitCodec.ImputerSummary(new RunResults.Choice(rf[0], rf[1], "imputer", imp.name(), "", "",
+                fi.chosen().toString(), fi.innerMae(), imp.grid().size()), quality);
+    }
+
+    private RunResults collect(State state) {
         List<RunResults.Prediction> predictions = new ArrayList<>();
         List<RunResults.Choice> choices = new ArrayList<>();
         List<RunResults.ImputationRow> quality = new ArrayList<>();
         List<Importance.Fold> importance = new ArrayList<>();
-        for (int[] rf : state.folds) {
-            for (int m = 0; m < ex.imputers().size(); m++) {
-                ImputedFold fi = state.imputed[rf[2]][m];
-                if (fi == null) {
-                    continue;
-                }
-                Resolved.Imputer imp = ex.imputers().get(m);
-                choices.add(new RunResults.Choice(rf[0], rf[1], "imputer", imp.name(), "", "",
-                        fi.chosen().toString(), fi.innerMae(), imp.grid().size()));
-                for (ImputedFold.Quality q : fi.quality()) {
-                    quality.add(new RunResults.ImputationRow(imp.name(), rf[0], rf[1], q.subject(), q.mae(), q.rmse(),
-                            q.pearsonR(), q.strengthMae(), q.skill(), q.absError()));
+        if (anyImputed()) {
+            for (int[] rf : state.folds) {
+                for (int m = 0; m < ex.imputers().size(); m++) {
+                    UnitCodec.ImputerSummary s = (UnitCodec.ImputerSummary) known(UnitCodec.imputerKey(rf[2], m));
+                    choices.add(s.choice());
+                    quality.addAll(s.quality());
                 }
             }
         }
@@ -194,7 +362,7 @@ public final class Runner {
         int perFold = ex.pipelines().size();
         for (int pi = 0; pi < perFold; pi++) {
             for (int[] rf : state.folds) {
-                ClassifierStage.Output o = outputs.get(rf[2] * perFold + pi);
+                ClassifierStage.Output o = (ClassifierStage.Output) known(UnitCodec.classifierKey(rf[2], pi));
                 predictions.addAll(o.predictions());
                 choices.add(o.choice());
                 if (o.importance() != null) {

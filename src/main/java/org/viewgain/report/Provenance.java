@@ -46,6 +46,35 @@ public final class Provenance {
         record.put("input_sha256", inputHashes(spec, subjectIds));
     }
 
+    /**
+     * What a journal must match to be resumed or merged: the SHA-256 of the spec text and of every input file, the
+     * seed, the tool version and the shard ({@code I/N}, or {@code all} for a whole run).
+     */
+    public Map<String, Object> identity(String shard) {
+        Map<String, Object> id = new LinkedHashMap<>();
+        id.put("spec_sha256", sha256(record.get("spec_text").toString()));
+        id.put("input_sha256", record.get("input_sha256"));
+        id.put("seed", record.get("seed"));
+        id.put("tool_version", record.get("tool_version"));
+        id.put("shard", shard == null ? "all" : shard);
+        return id;
+    }
+
+    private static String sha256(String text) {
+        try {
+            return HexFormat.of().formatHex(MessageDigest.getInstance("SHA-256")
+                    .digest(text.getBytes(java.nio.charset.StandardCharsets.UTF_8)));
+        } catch (NoSuchAlgorithmException e) {
+            throw new IllegalStateException(e);
+        }
+    }
+
+    /** Reads a run folder's run.json as a map (for resume and merge). */
+    public static Map<String, Object> read(Path runJson) throws IOException {
+        return new ObjectMapper().readValue(runJson.toFile(),
+                new com.fasterxml.jackson.core.type.TypeReference<LinkedHashMap<String, Object>>() { });
+    }
+
     /** Records a key (e.g. counts, end time). */
     public Provenance put(String key, Object value) {
         record.put(key, value);

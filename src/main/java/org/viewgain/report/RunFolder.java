@@ -42,6 +42,31 @@ public final class RunFolder {
         throw new IOException("cannot create a new run folder under " + parent);
     }
 
+    /**
+     * Creates exactly {@code dir} (a shard's folder), refusing one that exists: only {@code --resume} writes into an
+     * existing folder.
+     */
+    public static RunFolder createAt(Path dir) throws IOException {
+        if (dir.getParent() != null) {
+            Files.createDirectories(dir.getParent());
+        }
+        try {
+            Files.createDirectory(dir);
+        } catch (FileAlreadyExistsException e) {
+            throw new org.viewgain.spec.BadInputException(dir + " already exists; continue it with 'viewgain run "
+                    + "--resume " + dir + "' or choose another --out");
+        }
+        return new RunFolder(dir);
+    }
+
+    /** An existing run folder, to resume; it must hold run.json. */
+    public static RunFolder existing(Path dir) {
+        if (!Files.isRegularFile(dir.resolve("run.json"))) {
+            throw new org.viewgain.spec.BadInputException(dir + " is not a run folder (no run.json)");
+        }
+        return new RunFolder(dir);
+    }
+
     public Path dir() {
         return dir;
     }

@@ -1,0 +1,175 @@
+package org.viewgain.engine;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.util.ArrayList;
+import java.util.List;
+
+/**
+ * Turns finished work units into journal records and back, exactly: doubles are written with
+ * {@link Double#toString(double)} as text (which {@link Double#parseDouble} reads back to the same value, NaN and
+ * infinities included), pipelines by their index in the experiment's pipeline list.
+ */
+final class UnitCodec {
+    private static final ObjectMapper JSON = new ObjectMapper();
+    private final Experiment ex;
+
+    UnitCodec(Experiment ex) {
+        this.ex = ex;
+    }
+
+    /** Key of a phase-one summary unit (outer fold slot, imputer). */
+    static String imputerKey(int slot, int imputer) {
+        return "i/" + slot + "/" + imputer;
+    }
+
+    /** Key of a phase-two unit (outer fold slot, pipeline). */
+    static String classifierKey(int slot, int pipeline) {
+        return "c/" + slot + "/" + pipeline;
+    }
+
+    /** Key of a phase-three unit (pipeline, permutation index from 0). */
+    static String permutationKey(int pipeline, int k) {
+        return "p/" + pipeline + "/" + k;
+    }
+
+    /** What phase one reports of one imputer in one outer fold: the choice and the quality rows. */
+    record ImputerSummary(RunResults.Choice choice, List<RunResults.ImputationRow> quality) {
+    }
+
+    ObjectNode imputer(String key, ImputerSummary s) {
+        ObjectNode o = record(key);
+        o.set("choice", choice(s.choice()));
+        ArrayNode rows = o.putArray("quality");
+        for (RunResults.ImputationRow q : s.quality()) {
+            ArrayNode a = rows.addArray();
+            a.add(q.imputer()).add(q.repeat()).add(q.fold()).add(q.subject()).add(d(q.mae())).add(d(q.rmse()))
+                    .add(d(q.pearsonR())).add(d(q.strengthMae())).add(d(q.skill()));
+            a.add(doubles(q.absError()));
+        }
+        return o;
+    }
+
+    ImputerSummary imputer(JsonNode o) {
+        List<RunResults.ImputationRow> rows = new ArrayList<>();
+        for (JsonNode a : o.get("quality")) {
+            rows.add(new RunResults.ImputationRow(a.get(0).asText(), a.get(1).asInt(), a.get(2).asInt(),
+                    a.get(3).asInt(), d(a.get(4)), d(a.get(5)), d(a.get(6)), d(a.get(7)), d(a.get(8)),
+                    doubles(a.get(9))));
+        }
+        return new ImputerSummary(choice(o.get("choice")), rows);
+    }
+
+    ObjectNode classifier(String key, ClassifierStage.Output out) {
+        ObjectNode o = record(key);
+        ArrayNode preds = o.putArray("predictions");
+        for (RunResults.Prediction p : out.predictions()) {
+            ArrayNode a = preds.addArray();
+            a.add(index(p.pipeline())).add(p.repeat()).add(p.fold()).add(p.subject()).add(p.truth())
+                    .add(p.predicted()).add(d(p.score()));
+            a.add(doubles(p.scores()));
+        }
+        o.set("choice", choice(out.choice()));
+        Importance.Fold f = out.importance();
+        if (f != null) {
+            ObjectNode imp = o.putObject("importance");
+            imp.put("pipeline", index(f.pipeline())).put("repeat", f.repeat()).put("fold", f.fold())
+                    .put("selected", f.selected()).put("kind", f.kind());
+            ArrayNode names = imp.putArray("names");
+            f.inputNames().forEach(names::add);
+            imp.set("values", doubles(f.values()));
+        }
+        return o;
+    }
+
+    ClassifierStage.Output classifier(JsonNode o) {
+        List<RunResults.Prediction> preds = new ArrayList<>();
+        for (JsonNode a : o.get("predictions")) {
+            preds.add(new RunResults.Prediction(ex.pipelines().get(a.get(0).asInt()), a.get(1).asInt(),
+                    a.get(2).asInt(), a.get(3).asInt(), a.get(4).asInt(), a.get(5).asInt(), d(a.get(6)),
+                    doubles(a.get(7))));
+        }
+        Importance.Fold imp = null;
+        JsonNode f = o.get("importance");
+        if (f != null && !f.isNull()) {
+            List<String> names = new ArrayList<>();
+            f.get("names").forEach(n -> names.add(n.asText()));
+            imp = new Importance.Fold(ex.pipelines().get(f.get("pipeline").asInt()), f.get("repeat").asInt(),
+                    f.get("fold").asInt(), f.get("selected").asBoolean(), names, doubles(f.get("values")),
+                    text(f.get("kind")));
+        }
+        return new ClassifierStage.Output(preds, choice(o.get("choice")), imp);
+    }
+
+    ObjectNode permutation(String key, double statistic) {
+        ObjectNode o = record(key);
+        o.put("statistic", d(statistic));
+        return o;
+    }
+
+    static double permutation(JsonNode o) {
+        return d(o.get("statistic"));
+    }
+
+    private static ObjectNode record(String key) {
+        ObjectNode o = JSON.createObjectNode();
+        o.put("unit", key);
+        return o;
+    }
+
+    private int index(Pipeline p) {
+        int i = ex.pipelines().indexOf(p);
+        if (i < 0) {
+            throw new IllegalStateException("unknown pipeline " + p.label());
+        }
+        return i;
+    }
+
+    private static ArrayNode choice(RunResults.Choice c) {
+        ArrayNode a = JSON.createArrayNode();
+        a.add(c.repeat()).add(c.fold()).add(c.stage()).add(c.imputer()).add(c.featureSet()).add(c.classifier())
+                .add(c.params()).add(d(c.innerScore())).add(c.gridSize());
+        return a;
+    }
+
+    private static RunResults.Choice choice(JsonNode a) {
+        return new RunResults.Choice(a.get(0).asInt(), a.get(1).asInt(), text(a.get(2)), text(a.get(3)),
+                text(a.get(4)), text(a.get(5)), text(a.get(6)), d(a.get(7)), a.get(8).asInt());
+    }
+
+    private static String text(JsonNode n) {
+        return n == null || n.isNull() ? null : n.asText();
+    }
+
+    private static String d(double v) {
+        return Double.toString(v);
+    }
+
+    private static double d(JsonNode n) {
+        return Double.parseDouble(n.asText());
+    }
+
+    private static JsonNode doubles(double[] v) {
+        if (v == null) {
+            return JSON.nullNode();
+        }
+        ArrayNode a = JSON.createArrayNode();
+        for (double x : v) {
+            a.add(d(x));
+        }
+        return a;
+    }
+
+    private static double[] doubles(JsonNode n) {
+        if (n == null || n.isNull()) {
+            return null;
+        }
+        double[] v = new double[n.size()];
+        for (int i = 0; i < v.length; i++) {
+            v[i] = d(n.get(i));
+        }
+        return v;
+    }
+}
