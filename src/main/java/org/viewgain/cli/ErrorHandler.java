@@ -30,7 +30,7 @@ final class ErrorHandler implements CommandLine.IExecutionExceptionHandler {
             root = root.getCause();
         }
         String what = root instanceof OutOfMemoryError
-                ? "out of memory (give Java more heap, e.g. JAVA_OPTS=-Xmx8g, or use fewer threads)"
+                ? Failure.outOfMemory()
                 : root.getClass().getSimpleName() + (root.getMessage() == null ? "" : ": " + root.getMessage());
         err.println("viewgain: the run failed: " + what + (verbose ? "" : " (use --verbose for details)"));
         if (verbose) {

@@ -39,6 +39,13 @@ final class Failure {
         return ErrorHandler.FAILED;
     }
 
+    /** The out-of-memory phrase, naming the heap this JVM had so that the advice fits. */
+    static String outOfMemory() {
+        double gb = Runtime.getRuntime().maxMemory() / (1024.0 * 1024 * 1024);
+        return String.format(java.util.Locale.ROOT, "out of memory (the Java heap was %.1f GB; give Java more with"
+                + " JAVA_OPTS=-Xmx<size>, use fewer --threads, or select features to shrink the rows)", gb);
+    }
+
     /** One phrase naming the cause: out of memory, disk full, or the root exception. */
     static String describe(Throwable e) {
         Throwable root = e;
@@ -46,7 +53,7 @@ final class Failure {
         while (true) {
             io |= root instanceof IOException || root instanceof UncheckedIOException;
             if (root instanceof OutOfMemoryError) {
-                return "out of memory (give Java more heap, e.g. JAVA_OPTS=-Xmx8g, or use fewer threads)";
+                return outOfMemory();
             }
             String m = root.getMessage();
             if (m != null && m.contains("No space left on device")) {
