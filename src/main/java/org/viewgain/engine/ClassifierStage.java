@@ -209,7 +209,7 @@ final class ClassifierStage {
             int i = positions[t];
             ids.add(d.id(i));
             double[] imp = fs.needsImputer()
-                    ? Extractors.apply(ex.spec().features().extract(), d.target(), imputed.imputed()[i]) : null;
+                    ? Extractors.apply(ex.spec().features().extract(), d.target(), imputed.row(i)) : null;
             x[t] = switch (fs) {
                 case SOURCE -> d.sourceFeatures()[i];
                 case TARGET -> d.targetFeatures()[i];

@@ -96,7 +96,7 @@ final class ImputationStage {
                 out[i] = d.target().base(d.id(i));
             }
         }
-        return new ImputedFold(out, chosen, innerMae, quality(ctx, withTarget, ex.plan().test(repeat, fold), out));
+        return ImputedFold.of(out, chosen, innerMae, quality(ctx, withTarget, ex.plan().test(repeat, fold), out));
     }
 
     /** Quality rows of the test subjects with an observed target, with skill against a mean fitted alongside. */
