@@ -97,7 +97,7 @@ final class MergeCommand implements Callable<Integer> {
         for (Map.Entry<Integer, Journal> e : byIndex.entrySet()) {
             Shard s = new Shard(e.getKey(), count);
             List<String> want = runner.unitKeys(s);
-            Set<String> have = new HashSet<>(e.getValue().units().keySet());
+            Set<String> have = new HashSet<>(e.getValue().keys());
             List<String> missing = new ArrayList<>(want.stream().filter(k -> !have.contains(k)).toList());
             if (!missing.isEmpty()) {
                 throw new BadInputException("shard " + s.label() + " is not finished: " + missing.size() + " of "

@@ -12,13 +12,17 @@ import java.util.Set;
  * One measurement of the cohort for the subjects who have it: either a graph (a symmetric matrix over named
  * regions, kept as its upper triangle) or a table of named columns. Each subject's <em>base vector</em> is the upper
  * triangle {@code i<j} in row-major order for a graph, or the row's values for a table. Immutable.
+ *
+ * <p>Values are held in single precision (a 24-bit significand, about 7 significant digits, far finer than any
+ * morphometric or connectivity measurement): at 268 regions a view of 1,000 subjects is 143 MB instead of 286 MB.
+ * Every computation on them is done in double precision.
  */
 public final class View {
     private final String name;
     private final boolean graph;
     private final List<String> regionNames;
     private final List<String> baseNames;
-    private final Map<String, double[]> bases;
+    private final Map<String, float[]> bases;
 
     private View(String name, boolean graph, List<String> regionNames, List<String> baseNames,
                  Map<String, double[]> bases) {
@@ -26,14 +30,18 @@ public final class View {
         this.graph = graph;
         this.regionNames = List.copyOf(regionNames);
         this.baseNames = List.copyOf(baseNames);
-        Map<String, double[]> copy = new LinkedHashMap<>();
+        Map<String, float[]> copy = new LinkedHashMap<>();
         for (Map.Entry<String, double[]> e : bases.entrySet()) {
             double[] v = e.getValue();
             if (v.length != this.baseNames.size()) {
                 throw new IllegalArgumentException("view " + name + ": subject " + e.getKey() + " has "
                         + v.length + " values, expected " + this.baseNames.size());
             }
-            copy.put(e.getKey(), v.clone());
+            float[] f = new float[v.length];
+            for (int c = 0; c < f.length; c++) {
+                f[c] = (float) v[c];
+            }
+            copy.put(e.getKey(), f);
         }
         this.bases = Collections.unmodifiableMap(copy);
     }
@@ -106,13 +114,30 @@ public final class View {
         return bases.containsKey(id);
     }
 
-    /** A copy of the subject's base vector; throws {@link IllegalArgumentException} when the subject has none. */
+    /**
+     * A copy of the subject's base vector in double precision; throws {@link IllegalArgumentException} when the
+     * subject has none.
+     */
     public double[] base(String id) {
-        double[] v = bases.get(id);
+        float[] v = stored(id);
+        double[] out = new double[v.length];
+        for (int c = 0; c < v.length; c++) {
+            out[c] = v[c];
+        }
+        return out;
+    }
+
+    /**
+     * The subject's base vector as stored, shared rather than copied so that feature matrices need not hold a second
+     * copy of a view: callers must never write to it. Throws {@link IllegalArgumentException} when the subject has
+     * none.
+     */
+    public float[] stored(String id) {
+        float[] v = bases.get(id);
         if (v == null) {
             throw new IllegalArgumentException("view " + name + " has no data for subject " + id);
         }
-        return v.clone();
+        return v;
     }
 
     /** The subjects with data in this view, in loading order (the subjects table's order). */

@@ -200,49 +200,46 @@ final class ClassifierStage {
         return ClassificationMetrics.multiclass(truth, pred, scores, classes);
     }
 
-    /** Feature rows of a feature set for the given subject positions. */
+    /**
+     * Feature rows of a feature set for the given subject positions, in double precision arrays owned by the caller
+     * (the data are stored once, in single precision, and widened here; see {@link StudyData}).
+     */
     Rows rows(FeatureSet fs, int[] positions, ImputedFold imputed) {
+        return rows(ex, fs, positions, imputed);
+    }
+
+    /** See {@link #rows(FeatureSet, int[], ImputedFold)}; {@code imputed} may be null for sets without imputations. */
+    static Rows rows(Experiment ex, FeatureSet fs, int[] positions, ImputedFold imputed) {
         StudyData d = ex.data();
         double[][] x = new double[positions.length][];
         List<String> ids = new ArrayList<>(positions.length);
+        List<String> names = d.featureNames(fs);
+        int sourceWidth = fs.usesSource() ? d.sourceNames().size() : 0;
         for (int t = 0; t < positions.length; t++) {
             int i = positions[t];
             ids.add(d.id(i));
-            double[] imp = fs.needsImputer()
-                    ? Extractors.apply(ex.spec().features().extract(), d.target(), imputed.row(i)) : null;
-            x[t] = switch (fs) {
-                case SOURCE -> d.sourceFeatures()[i];
-                case TARGET -> d.targetFeatures()[i];
-                case IMPUTED -> imp;
-                case SOURCE_IMPUTED -> join(d.sourceFeatures()[i], imp);
-                case SOURCE_TARGET -> join(d.sourceFeatures()[i], d.targetFeatures()[i]);
-            };
+            double[] row = new double[names.size()];
+            if (fs.usesSource()) {
+                d.sourceInto(i, row, 0);
+            }
+            if (fs.needsImputer()) {
+                double[] imp = Extractors.apply(ex.spec().features().extract(), d.target(), imputed.row(i));
+                System.arraycopy(imp, 0, row, sourceWidth, imp.length);
+            } else if (fs != FeatureSet.SOURCE) {
+                d.targetInto(i, row, sourceWidth);
+            }
+            x[t] = row;
         }
-        return new Rows(ids, x, names(fs));
+        return new Rows(ids, x, names);
     }
 
     List<String> names(FeatureSet fs) {
-        return names(ex, fs);
+        return ex.data().featureNames(fs);
     }
 
     /** Prefixed feature names of a feature set: {@code source:}, then {@code target:} or {@code imputed:}. */
     static List<String> names(Experiment ex, FeatureSet fs) {
-        StudyData d = ex.data();
-        List<String> out = new ArrayList<>();
-        if (fs.usesSource()) {
-            d.sourceNames().forEach(n -> out.add("source:" + n));
-        }
-        String prefix = fs.needsImputer() ? "imputed:" : "target:";
-        if (fs != FeatureSet.SOURCE) {
-            d.targetNames().forEach(n -> out.add(prefix + n));
-        }
-        return out;
-    }
-
-    private static double[] join(double[] a, double[] b) {
-        double[] r = Arrays.copyOf(a, a.length + b.length);
-        System.arraycopy(b, 0, r, a.length, b.length);
-        return r;
+        return ex.data().featureNames(fs);
     }
 
     private static int[] pick(int[] all, int[] positions) {

@@ -25,20 +25,30 @@ public final class DataLoader {
         View target = spec.target() == null ? null : loadView(spec.target(), ids);
         int n = subjects.size();
         int[] y = new int[n];
-        double[][] sf = new double[n][];
-        double[][] tf = target == null ? null : new double[n][];
+        float[][] sf = new float[n][];
+        float[][] tf = target == null ? null : new float[n][];
         List<String> extract = spec.features().extract();
         for (int i = 0; i < n; i++) {
             Subject s = subjects.get(i);
             y[i] = c.groups().indexOf(s.group());
-            sf[i] = Extractors.apply(extract, source, source.base(s.id()));
+            sf[i] = features(extract, source, s.id());
             if (target != null && target.has(s.id())) {
-                tf[i] = Extractors.apply(extract, target, target.base(s.id()));
+                tf[i] = features(extract, target, s.id());
             }
         }
         List<String> sn = new ArrayList<>(Extractors.names(extract, source));
         List<String> tn = target == null ? List.of() : Extractors.names(extract, target);
         return new StudyData(subjects, y, source, target, sf, tf, sn, tn);
+    }
+
+    /** A subject's observed features: the view's stored vector itself for {@code edges} alone, else extracted. */
+    private static float[] features(List<String> extract, View view, String id) {
+        Extractors.check(extract, view);
+        if (extract.equals(List.of(Extractors.EDGES))) {
+            return view.stored(id);
+        }
+        double[] f = Extractors.apply(extract, view, view.base(id));
+        return ImputedFold.compact(f);
     }
 
     private static View loadView(Specs.View v, List<String> ids) {

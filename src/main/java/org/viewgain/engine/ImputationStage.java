@@ -31,7 +31,8 @@ final class ImputationStage {
         int k = ex.spec().validation().innerFolds();
         FitContext base = new FitContext(permutation, repeat, fold, FitContext.WHOLE, FitContext.Role.FINAL, 0L);
 
-        double[][] out = new double[d.n()][];
+        // kept in single precision (they stay in memory for the whole run); quality is measured before rounding
+        float[][] out = new float[d.n()][];
         Params chosen = imp.grid().get(0);
         double innerMae = Double.NaN;
         if (ImputationTasks.runsCrossFits(ex, imp)) {
@@ -40,9 +41,9 @@ final class ImputationStage {
                 tasks.add(ImputationTasks.crossFit(ex, repeat, fold, innerOf, j));
             }
             double best = Double.POSITIVE_INFINITY;
-            double[][] bestPreds = null;
+            float[][] bestPreds = null;
             for (Params p : imp.grid()) {
-                double[][] preds = new double[d.n()][];
+                float[][] preds = new float[d.n()][];
                 double absSum = 0;
                 long cells = 0;
                 for (ImputationTasks.Task task : tasks) {
@@ -57,7 +58,7 @@ final class ImputationStage {
                     double[][] got = fitted.impute(ctx, sourceRows(predSet));
                     for (int t = 0; t < predSet.length; t++) {
                         int i = predSet[t];
-                        preds[i] = got[t];
+                        preds[i] = ImputedFold.compact(got[t]);
                         if (d.hasTarget(i)) {
                             double[] obs = d.target().base(d.id(i));
                             for (int c = 0; c < obs.length; c++) {
@@ -88,25 +89,33 @@ final class ImputationStage {
         ViewImputer.Fitted fitted = imp.method().fit(ctx, sourceRows(withTarget), targetRows(withTarget), chosen);
         int[] toImpute = last.imputePositions();
         double[][] got = fitted.impute(ctx, sourceRows(toImpute));
+        double[][] exact = new double[d.n()][];
         for (int t = 0; t < toImpute.length; t++) {
-            out[toImpute[t]] = got[t];
+            out[toImpute[t]] = ImputedFold.compact(got[t]);
+            exact[toImpute[t]] = got[t];
         }
         if (!crossFit) {
             for (int i : withTarget) {
-                out[i] = d.target().base(d.id(i));
+                out[i] = ImputedFold.compact(d.target().base(d.id(i)));
             }
         }
-        return ImputedFold.of(out, chosen, innerMae, quality(ctx, withTarget, ex.plan().test(repeat, fold), out));
+        List<ImputedFold.Quality> quality = new ArrayList<>();
+        double[] edgeErrors = quality(ctx, withTarget, ex.plan().test(repeat, fold), exact, quality);
+        return new ImputedFold(out, chosen, innerMae, quality, edgeErrors);
     }
 
-    /** Quality rows of the test subjects with an observed target, with skill against a mean fitted alongside. */
-    private List<ImputedFold.Quality> quality(FitContext ctx, int[] withTarget, int[] test, double[][] out) {
+    /**
+     * Adds the quality rows of the test subjects with an observed target (skill against a mean fitted alongside) to
+     * {@code quality} and returns the per-feature sums of their absolute errors (null when there are none).
+     */
+    private double[] quality(FitContext ctx, int[] withTarget, int[] test, double[][] out,
+                             List<ImputedFold.Quality> quality) {
         StudyData d = ex.data();
         int[] scored = java.util.Arrays.stream(test).filter(d::hasTarget).toArray();
-        List<ImputedFold.Quality> quality = new ArrayList<>(scored.length);
         if (scored.length == 0) {
-            return quality;
+            return null;
         }
+        double[] sums = new double[d.target().width()];
         MeanImputer mean = new MeanImputer();
         double[][] baseline = mean.fit(ctx, sourceRows(withTarget), targetRows(withTarget), Params.NONE)
                 .impute(ctx, sourceRows(scored));
@@ -119,14 +128,13 @@ final class ImputationStage {
             double mae = ImputationQuality.mae(obs, im);
             double maeMean = ImputationQuality.mae(obs, baseline[t]);
             double skill = maeMean > 0 ? ImputationQuality.skill(mae, maeMean) : Double.NaN;
-            double[] abs = new double[obs.length];
             for (int c = 0; c < obs.length; c++) {
-                abs[c] = Math.abs(obs[c] - im[c]);
+                sums[c] += Math.abs(obs[c] - im[c]);
             }
             quality.add(new ImputedFold.Quality(i, mae, ImputationQuality.rmse(obs, im),
-                    ImputationQuality.pearsonR(obs, im), strength, skill, abs));
+                    ImputationQuality.pearsonR(obs, im), strength, skill));
         }
-        return quality;
+        return sums;
     }
 
     private Rows sourceRows(int[] positions) {

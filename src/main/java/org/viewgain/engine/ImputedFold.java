@@ -13,21 +13,18 @@ import org.viewgain.spec.Params;
  * @param chosen      the grid point chosen by inner cross-validation
  * @param innerMae    the inner cross-validated MAE of the chosen point (NaN when no tuning was needed)
  * @param quality     one row per outer-test subject with an observed target
+ * @param edgeErrors  per target feature (base-vector order), the sum over the quality rows of the absolute error;
+ *                    null when no test subject has an observed target
  */
-record ImputedFold(float[][] imputed, Params chosen, double innerMae, List<Quality> quality) {
+record ImputedFold(float[][] imputed, Params chosen, double innerMae, List<Quality> quality, double[] edgeErrors) {
 
-    /** Stores the imputations in single precision. */
-    static ImputedFold of(double[][] imputed, Params chosen, double innerMae, List<Quality> quality) {
-        float[][] compact = new float[imputed.length][];
-        for (int i = 0; i < imputed.length; i++) {
-            if (imputed[i] != null) {
-                compact[i] = new float[imputed[i].length];
-                for (int c = 0; c < compact[i].length; c++) {
-                    compact[i][c] = (float) imputed[i][c];
-                }
-            }
+    /** Single precision copy of a row. */
+    static float[] compact(double[] row) {
+        float[] out = new float[row.length];
+        for (int c = 0; c < out.length; c++) {
+            out[c] = (float) row[c];
         }
-        return new ImputedFold(compact, chosen, innerMae, quality);
+        return out;
     }
 
     /** The imputed base vector of subject position {@code i} as doubles (a new array), or null. */
@@ -48,9 +45,7 @@ record ImputedFold(float[][] imputed, Params chosen, double innerMae, List<Quali
      *
      * @param skill    {@code 1 - mae / mae_mean}, with mae_mean from a {@code mean} imputer fitted on the same
      *                 training subjects; NaN when mae_mean is 0
-     * @param absError absolute error of each target feature (base-vector order)
      */
-    record Quality(int subject, double mae, double rmse, double pearsonR, double strengthMae, double skill,
-                   double[] absError) {
+    record Quality(int subject, double mae, double rmse, double pearsonR, double strengthMae, double skill) {
     }
 }

@@ -18,7 +18,9 @@ import java.nio.file.StandardOpenOption;
 import java.util.Collections;
 import java.util.Iterator;
 import java.util.LinkedHashMap;
+import java.util.LinkedHashSet;
 import java.util.Map;
+import java.util.Set;
 import java.util.zip.CRC32;
 import org.viewgain.spec.BadInputException;
 
@@ -40,7 +42,10 @@ public final class Journal implements Closeable {
 
     private final Path file;
     private final JsonNode identity;
+    /** Records read from the file (or merged in) and not yet taken; appended records are not kept in memory. */
     private final Map<String, JsonNode> units;
+    /** Keys of every finished unit: read, merged in or appended. */
+    private final Set<String> keys;
     private final FileChannel channel;
     private Sink sink;
     private long goodBytes;
@@ -50,6 +55,7 @@ public final class Journal implements Closeable {
         this.file = file;
         this.identity = identity;
         this.units = units;
+        this.keys = Collections.synchronizedSet(new LinkedHashSet<>(units.keySet()));
         this.channel = channel;
         this.sink = channel == null ? null : line -> {
             ByteBuffer b = ByteBuffer.wrap(line);
@@ -241,26 +247,47 @@ public final class Journal implements Closeable {
         return file;
     }
 
-    /** Finished unit records by key, in journal order; read only. */
+    /**
+     * Unit records read from the file or merged in and not yet {@linkplain #take taken}, by key, in journal order;
+     * read only. Records appended by this process are written to disk but not kept in memory (at 35,778 edges a
+     * phase-one record alone is megabytes of text).
+     */
     public Map<String, JsonNode> units() {
         synchronized (units) {
             return Map.copyOf(units);
         }
     }
 
+    /** Keys of every finished unit (read, merged in or appended), in journal order. */
+    public Set<String> keys() {
+        synchronized (keys) {
+            return Set.copyOf(keys);
+        }
+    }
+
+    /** The record of a unit read or merged in, or null; see {@link #take}. */
     JsonNode unit(String key) {
         return units.get(key);
     }
 
+    /** Releases a record's memory once the caller has decoded it; its key stays finished. */
+    void take(String key) {
+        units.remove(key);
+    }
+
     /** Number of finished units. */
     public int size() {
-        return units.size();
+        return keys.size();
     }
 
     /** Appends one finished unit and forces it to disk; the first record of a key wins. */
     synchronized void append(ObjectNode rec) {
+        write(rec, false);
+    }
+
+    private void write(ObjectNode rec, boolean keep) {
         String key = rec.get("unit").asText();
-        if (units.containsKey(key)) {
+        if (keys.contains(key)) {
             return;
         }
         if (failure != null) {
@@ -276,17 +303,23 @@ public final class Journal implements Closeable {
             failure = e;
             throw new UncheckedIOException("cannot write the journal " + file + ": " + e.getMessage(), e);
         }
-        units.put(key, rec);
+        keys.add(key);
+        if (keep) {
+            units.put(key, rec);
+        }
     }
 
-    /** Adds records of another journal (merge), writing each one; refuses a unit that is already there. */
+    /**
+     * Adds records of another journal (merge), writing each one and keeping it in memory for the run that follows;
+     * refuses a unit that is already there.
+     */
     public synchronized void appendAll(Journal other) {
-        for (JsonNode rec : other.units.values()) {
+        for (JsonNode rec : other.units().values()) {
             String key = rec.get("unit").asText();
-            if (units.containsKey(key)) {
+            if (keys.contains(key)) {
                 throw new BadInputException("unit " + key + " is in more than one shard (" + other.file + ")");
             }
-            append((ObjectNode) rec);
+            write((ObjectNode) rec, true);
         }
     }
 

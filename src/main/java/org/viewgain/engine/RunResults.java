@@ -1,26 +1,35 @@
 package org.viewgain.engine;
 
 import java.util.List;
+import java.util.Map;
 import org.viewgain.folds.FoldPlan;
 
 /**
  * What a run produced, in a fixed order that does not depend on threads: out-of-fold predictions, the chosen
  * hyperparameters, and the imputation quality rows. The report package turns these into tables.
+ *
+ * @param firstRepeatImputed per imputer, the out-of-fold imputed base vectors of repeat 1 (rows shared with the
+ *                           run's imputations, read only), for {@link Separation}; empty when the run did not compute
+ *                           them (e.g. a merge of shards), in which case they are recomputed
  */
 public record RunResults(Experiment experiment, FoldPlan plan, List<Prediction> predictions,
-                         List<Choice> choices, List<ImputationRow> imputation, List<PermutationResult> permutations,
-                         List<Importance.Fold> importance) {
+                         List<Choice> choices, List<ImputationRow> imputation, List<EdgeErrors> edgeErrors,
+                         List<PermutationResult> permutations, List<Importance.Fold> importance,
+                         Map<String, float[][]> firstRepeatImputed) {
     public RunResults {
+        firstRepeatImputed = Map.copyOf(firstRepeatImputed);
         predictions = List.copyOf(predictions);
         choices = List.copyOf(choices);
         imputation = List.copyOf(imputation);
+        edgeErrors = List.copyOf(edgeErrors);
         permutations = List.copyOf(permutations);
         importance = List.copyOf(importance);
     }
 
     /** The same results with the permutation tests added. */
     public RunResults withPermutations(List<PermutationResult> perms) {
-        return new RunResults(experiment, plan, predictions, choices, imputation, perms, importance);
+        return new RunResults(experiment, plan, predictions, choices, imputation, edgeErrors, perms, importance,
+                firstRepeatImputed);
     }
 
     /**
@@ -49,10 +58,19 @@ public record RunResults(Experiment experiment, FoldPlan plan, List<Prediction> 
      *
      * @param skill    {@code 1 - mae / mae_mean} against a {@code mean} imputer fitted on the same training subjects
      *                 (NaN when not computed)
-     * @param absError absolute error of each target feature in base-vector order, or null when not recorded; read
-     *                 only
      */
     public record ImputationRow(String imputer, int repeat, int fold, int subject, double mae, double rmse,
-                                double pearsonR, double strengthMae, double skill, double[] absError) {
+                                double pearsonR, double strengthMae, double skill) {
+    }
+
+    /**
+     * Per-feature imputation error of one imputer in one outer fold, kept as sums so that a fold costs one vector
+     * whatever its number of subjects.
+     *
+     * @param subjects the outer-test subjects with an observed target (the quality rows of that fold)
+     * @param sum      per target feature (base-vector order), the sum over those subjects of the absolute error;
+     *                 read only
+     */
+    public record EdgeErrors(String imputer, int repeat, int fold, int subjects, double[] sum) {
     }
 }

@@ -184,6 +184,7 @@ public final class Runner {
                     default -> UnitCodec.permutation(rec);
                 };
                 done.put(key, v);
+                journal.take(key);
             }
         }
         return v;
@@ -338,16 +339,19 @@ public final class Runner {
         List<RunResults.ImputationRow> quality = new ArrayList<>();
         for (ImputedFold.Quality q : fi.quality()) {
             quality.add(new RunResults.ImputationRow(imp.name(), rf[0], rf[1], q.subject(), q.mae(), q.rmse(),
-                    q.pearsonR(), q.strengthMae(), q.skill(), q.absError()));
+                    q.pearsonR(), q.strengthMae(), q.skill()));
         }
+        RunResults.EdgeErrors edges = fi.edgeErrors() == null ? null
+                : new RunResults.EdgeErrors(imp.name(), rf[0], rf[1], quality.size(), fi.edgeErrors());
         return new UnitCodec.ImputerSummary(new RunResults.Choice(rf[0], rf[1], "imputer", imp.name(), "", "",
-                fi.chosen().toString(), fi.innerMae(), imp.grid().size()), quality);
+                fi.chosen().toString(), fi.innerMae(), imp.grid().size()), quality, edges);
     }
 
     private RunResults collect(State state) {
         List<RunResults.Prediction> predictions = new ArrayList<>();
         List<RunResults.Choice> choices = new ArrayList<>();
         List<RunResults.ImputationRow> quality = new ArrayList<>();
+        List<RunResults.EdgeErrors> edges = new ArrayList<>();
         List<Importance.Fold> importance = new ArrayList<>();
         if (anyImputed()) {
             for (int[] rf : state.folds) {
@@ -355,6 +359,9 @@ public final class Runner {
                     UnitCodec.ImputerSummary s = (UnitCodec.ImputerSummary) known(UnitCodec.imputerKey(rf[2], m));
                     choices.add(s.choice());
                     quality.addAll(s.quality());
+                    if (s.edgeErrors() != null) {
+                        edges.add(s.edgeErrors());
+                    }
                 }
             }
         }
@@ -370,7 +377,33 @@ public final class Runner {
                 }
             }
         }
-        return new RunResults(ex, ex.plan(), predictions, choices, quality, List.of(), importance);
+        return new RunResults(ex, ex.plan(), predictions, choices, quality, edges, List.of(), importance,
+                firstRepeatImputed(state));
+    }
+
+    /** Out-of-fold imputations of repeat 1 per imputer when this run computed all of them (rows shared). */
+    private Map<String, float[][]> firstRepeatImputed(State state) {
+        Map<String, float[][]> out = new java.util.HashMap<>();
+        if (!anyImputed()) {
+            return out;
+        }
+        for (int m = 0; m < ex.imputers().size(); m++) {
+            float[][] rows = new float[ex.data().n()][];
+            for (int[] rf : state.folds) {
+                if (rf[0] != 0) {
+                    continue;
+                }
+                ImputedFold fi = state.imputed[rf[2]][m];
+                if (fi == null) {
+                    return Map.of();
+                }
+                for (int i : ex.plan().test(0, rf[1])) {
+                    rows[i] = fi.imputed()[i];
+                }
+            }
+            out.put(ex.imputers().get(m).name(), rows);
+        }
+        return out;
     }
 
     private static <T> List<T> invokeAll(ExecutorService pool, List<Callable<T>> tasks) {

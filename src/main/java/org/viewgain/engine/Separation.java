@@ -2,9 +2,8 @@ package org.viewgain.engine;
 
 import java.util.ArrayList;
 import java.util.List;
-import org.viewgain.cohort.Extractors;
 import org.viewgain.folds.Seeds;
-import org.viewgain.spec.FeatureSet;
+import org.viewgain.spec.Params;
 import org.viewgain.stats.Distances;
 import org.viewgain.stats.Permanova;
 
@@ -30,7 +29,6 @@ public final class Separation {
     public static List<Row> of(RunResults res) {
         Experiment ex = res.experiment();
         List<Row> out = new ArrayList<>();
-        double[][] imputedAll = null;
         for (Pipeline p : ex.pipelines()) {
             if (!p.classifier().equals(ex.classifiers().get(0).name())) {
                 continue; // one row per feature set and imputer, not per classifier
@@ -41,19 +39,23 @@ public final class Separation {
                     members.add(i);
                 }
             }
-            double[][] imputed = p.featureSet().needsImputer() ? firstRepeatImputations(ex, p.imputer()) : null;
-            double[][] x = new double[members.size()][];
-            int[] groups = new int[members.size()];
-            for (int k = 0; k < members.size(); k++) {
-                int i = members.get(k);
-                groups[k] = ex.data().y()[i];
-                x[k] = features(ex, p.featureSet(), i, imputed);
-            }
             int n = members.size();
             if (n > MAX_SUBJECTS || n < 3) {
                 out.add(new Row(p.featureSet().label(), p.imputer(), n, Double.NaN, Double.NaN, 0));
                 continue;
             }
+            ImputedFold imputed = null;
+            if (p.featureSet().needsImputer()) {
+                float[][] kept = res.firstRepeatImputed().get(p.imputer());
+                imputed = kept != null ? new ImputedFold(kept, Params.NONE, Double.NaN, List.of(), null)
+                        : firstRepeatImputations(ex, p.imputer());
+            }
+            int[] positions = members.stream().mapToInt(Integer::intValue).toArray();
+            int[] groups = new int[members.size()];
+            for (int k = 0; k < members.size(); k++) {
+                groups[k] = ex.data().y()[positions[k]];
+            }
+            double[][] x = ClassifierStage.rows(ex, p.featureSet(), positions, imputed).x();
             standardize(x);
             double[][] d = Distances.euclidean(x);
             Permanova.Result r = Permanova.monteCarlo(d, groups, PERMUTATIONS,
@@ -63,31 +65,18 @@ public final class Separation {
         return out;
     }
 
-    private static double[] features(Experiment ex, FeatureSet fs, int i, double[][] imputed) {
-        StudyData d = ex.data();
-        double[] imp = imputed == null ? null
-                : Extractors.apply(ex.spec().features().extract(), d.target(), imputed[i]);
-        return switch (fs) {
-            case SOURCE -> d.sourceFeatures()[i].clone();
-            case TARGET -> d.targetFeatures()[i].clone();
-            case IMPUTED -> imp;
-            case SOURCE_IMPUTED -> join(d.sourceFeatures()[i], imp);
-            case SOURCE_TARGET -> join(d.sourceFeatures()[i], d.targetFeatures()[i]);
-        };
-    }
-
     /** Out-of-fold imputed base vectors of the first repeat (recomputed: imputation is deterministic). */
-    private static double[][] firstRepeatImputations(Experiment ex, String imputer) {
-        double[][] out = new double[ex.data().n()][];
+    private static ImputedFold firstRepeatImputations(Experiment ex, String imputer) {
+        float[][] out = new float[ex.data().n()][];
         Resolved.Imputer imp = ex.imputer(imputer);
         ImputationStage stage = new ImputationStage(ex);
         for (int f = 0; f < ex.plan().folds(0); f++) {
             ImputedFold fold = stage.run(imp, 0, 0, f, InnerFolds.of(ex, 0, f));
             for (int i : ex.plan().test(0, f)) {
-                out[i] = fold.row(i);
+                out[i] = fold.imputed()[i];
             }
         }
-        return out;
+        return new ImputedFold(out, Params.NONE, Double.NaN, List.of(), null);
     }
 
     private static void standardize(double[][] x) {
@@ -108,11 +97,5 @@ public final class Separation {
                 r[j] = sd > 0 ? (r[j] - m) / sd : 0;
             }
         }
-    }
-
-    private static double[] join(double[] a, double[] b) {
-        double[] r = java.util.Arrays.copyOf(a, a.length + b.length);
-        System.arraycopy(b, 0, r, a.length, b.length);
-        return r;
     }
 }

@@ -1,26 +1,97 @@
 package org.viewgain.engine;
 
+import java.util.ArrayList;
+import java.util.EnumMap;
 import java.util.List;
+import java.util.Map;
 import org.viewgain.cohort.Subject;
 import org.viewgain.cohort.View;
+import org.viewgain.spec.FeatureSet;
 
 /**
  * A loaded cohort: subjects in file order, their class indices, the views, and the extracted features of observed
- * views (extraction has nothing fitted, so it is done once for everyone).
- *
- * @param y                class index of each subject (order of {@code spec.cohort.groups})
- * @param target           the target view, or null when the spec has none
- * @param sourceFeatures   extracted source features per subject
- * @param targetFeatures   extracted observed target features per subject, null where the target is missing
- * @param sourceNames      feature names of the source view (unprefixed)
- * @param targetNames      feature names of the target view (without prefix), or empty
+ * views (extraction has nothing fitted, so it is done once for everyone). Features are held in single precision
+ * like the views (see {@link View}); with the {@code edges} extractor alone a subject's features are the view's
+ * stored base vector itself, not a copy. Work units read rows through {@link #sourceInto} and {@link #targetInto},
+ * which widen them to double precision into arrays the unit owns. Immutable.
  */
-public record StudyData(List<Subject> subjects, int[] y, View source, View target, double[][] sourceFeatures,
-                        double[][] targetFeatures, List<String> sourceNames, List<String> targetNames) {
-    public StudyData {
-        subjects = List.copyOf(subjects);
-        sourceNames = List.copyOf(sourceNames);
-        targetNames = List.copyOf(targetNames);
+public final class StudyData {
+    private final List<Subject> subjects;
+    private final int[] y;
+    private final View source;
+    private final View target;
+    private final float[][] sourceFeatures;
+    private final float[][] targetFeatures;
+    private final List<String> sourceNames;
+    private final List<String> targetNames;
+    private final Map<FeatureSet, List<String>> prefixed = new EnumMap<>(FeatureSet.class);
+
+    /**
+     * @param y              class index of each subject (order of {@code spec.cohort.groups})
+     * @param target         the target view, or null when the spec has none
+     * @param sourceFeatures extracted source features per subject (not copied: never written afterwards)
+     * @param targetFeatures extracted observed target features per subject, null where the target is missing (null
+     *                       altogether without a target view)
+     * @param sourceNames    feature names of the source view (unprefixed)
+     * @param targetNames    feature names of the target view (without prefix), or empty
+     */
+    public StudyData(List<Subject> subjects, int[] y, View source, View target, float[][] sourceFeatures,
+                     float[][] targetFeatures, List<String> sourceNames, List<String> targetNames) {
+        this.subjects = List.copyOf(subjects);
+        this.y = y;
+        this.source = source;
+        this.target = target;
+        this.sourceFeatures = sourceFeatures;
+        this.targetFeatures = targetFeatures;
+        this.sourceNames = List.copyOf(sourceNames);
+        this.targetNames = List.copyOf(targetNames);
+        List<String> src = sourceNames.stream().map(n -> "source:" + n).toList();
+        List<String> tgt = targetNames.stream().map(n -> "target:" + n).toList();
+        List<String> imp = targetNames.stream().map(n -> "imputed:" + n).toList();
+        for (FeatureSet fs : FeatureSet.values()) {
+            List<String> names = new ArrayList<>();
+            if (fs.usesSource()) {
+                names.addAll(src);
+            }
+            if (fs != FeatureSet.SOURCE) {
+                names.addAll(fs.needsImputer() ? imp : tgt);
+            }
+            prefixed.put(fs, List.copyOf(names));
+        }
+    }
+
+    public List<Subject> subjects() {
+        return subjects;
+    }
+
+    /** Class index of every subject; read only. */
+    public int[] y() {
+        return y;
+    }
+
+    public View source() {
+        return source;
+    }
+
+    /** The target view, or null. */
+    public View target() {
+        return target;
+    }
+
+    public List<String> sourceNames() {
+        return sourceNames;
+    }
+
+    public List<String> targetNames() {
+        return targetNames;
+    }
+
+    /**
+     * Prefixed feature names of a feature set: {@code source:}, then {@code target:} or {@code imputed:}; one shared
+     * list per feature set.
+     */
+    public List<String> featureNames(FeatureSet fs) {
+        return prefixed.get(fs);
     }
 
     public int n() {
@@ -33,5 +104,47 @@ public record StudyData(List<Subject> subjects, int[] y, View source, View targe
 
     public String id(int i) {
         return subjects.get(i).id();
+    }
+
+    /** Writes subject {@code i}'s source features into {@code dst} from position {@code at}. */
+    public void sourceInto(int i, double[] dst, int at) {
+        widen(sourceFeatures[i], dst, at);
+    }
+
+    /** Writes subject {@code i}'s observed target features into {@code dst} from position {@code at}. */
+    public void targetInto(int i, double[] dst, int at) {
+        if (!hasTarget(i)) {
+            throw new IllegalArgumentException("subject " + id(i) + " has no observed target");
+        }
+        widen(targetFeatures[i], dst, at);
+    }
+
+    /** Subject {@code i}'s source features in a new double array. */
+    public double[] sourceFeatures(int i) {
+        double[] out = new double[sourceNames.size()];
+        sourceInto(i, out, 0);
+        return out;
+    }
+
+    /** Subject {@code i}'s observed target features in a new double array. */
+    public double[] targetFeatures(int i) {
+        double[] out = new double[targetNames.size()];
+        targetInto(i, out, 0);
+        return out;
+    }
+
+    /** The source features of every subject, in new double arrays. */
+    public double[][] sourceMatrix() {
+        double[][] out = new double[n()][];
+        for (int i = 0; i < out.length; i++) {
+            out[i] = sourceFeatures(i);
+        }
+        return out;
+    }
+
+    static void widen(float[] src, double[] dst, int at) {
+        for (int c = 0; c < src.length; c++) {
+            dst[at + c] = src[c];
+        }
     }
 }

@@ -35,8 +35,12 @@ final class UnitCodec {
         return "p/" + pipeline + "/" + k;
     }
 
-    /** What phase one reports of one imputer in one outer fold: the choice and the quality rows. */
-    record ImputerSummary(RunResults.Choice choice, List<RunResults.ImputationRow> quality) {
+    /**
+     * What phase one reports of one imputer in one outer fold: the choice, the quality rows and the per-feature error
+     * sums (null when no test subject had an observed target).
+     */
+    record ImputerSummary(RunResults.Choice choice, List<RunResults.ImputationRow> quality,
+                          RunResults.EdgeErrors edgeErrors) {
     }
 
     ObjectNode imputer(String key, ImputerSummary s) {
@@ -47,7 +51,11 @@ final class UnitCodec {
             ArrayNode a = rows.addArray();
             a.add(q.imputer()).add(q.repeat()).add(q.fold()).add(q.subject()).add(d(q.mae())).add(d(q.rmse()))
                     .add(d(q.pearsonR())).add(d(q.strengthMae())).add(d(q.skill()));
-            a.add(doubles(q.absError()));
+        }
+        RunResults.EdgeErrors e = s.edgeErrors();
+        if (e != null) {
+            o.putArray("edge_errors").add(e.imputer()).add(e.repeat()).add(e.fold()).add(e.subjects())
+                    .add(doubles(e.sum()));
         }
         return o;
     }
@@ -56,10 +64,12 @@ final class UnitCodec {
         List<RunResults.ImputationRow> rows = new ArrayList<>();
         for (JsonNode a : o.get("quality")) {
             rows.add(new RunResults.ImputationRow(a.get(0).asText(), a.get(1).asInt(), a.get(2).asInt(),
-                    a.get(3).asInt(), d(a.get(4)), d(a.get(5)), d(a.get(6)), d(a.get(7)), d(a.get(8)),
-                    doubles(a.get(9))));
+                    a.get(3).asInt(), d(a.get(4)), d(a.get(5)), d(a.get(6)), d(a.get(7)), d(a.get(8))));
         }
-        return new ImputerSummary(choice(o.get("choice")), rows);
+        JsonNode e = o.get("edge_errors");
+        RunResults.EdgeErrors edges = e == null ? null : new RunResults.EdgeErrors(e.get(0).asText(),
+                e.get(1).asInt(), e.get(2).asInt(), e.get(3).asInt(), doubles(e.get(4)));
+        return new ImputerSummary(choice(o.get("choice")), rows, edges);
     }
 
     ObjectNode classifier(String key, ClassifierStage.Output out) {
@@ -77,8 +87,12 @@ final class UnitCodec {
             ObjectNode imp = o.putObject("importance");
             imp.put("pipeline", index(f.pipeline())).put("repeat", f.repeat()).put("fold", f.fold())
                     .put("selected", f.selected()).put("kind", f.kind());
-            ArrayNode names = imp.putArray("names");
-            f.inputNames().forEach(names::add);
+            // the names are written only when they are not the feature set's own (selection): 71,556 names per
+            // unit would dominate the journal at 268 regions
+            if (!f.inputNames().equals(ClassifierStage.names(ex, f.pipeline().featureSet()))) {
+                ArrayNode names = imp.putArray("names");
+                f.inputNames().forEach(names::add);
+            }
             imp.set("values", doubles(f.values()));
         }
         return o;
@@ -94,9 +108,14 @@ final class UnitCodec {
         Importance.Fold imp = null;
         JsonNode f = o.get("importance");
         if (f != null && !f.isNull()) {
+            Pipeline pipeline = ex.pipelines().get(f.get("pipeline").asInt());
             List<String> names = new ArrayList<>();
-            f.get("names").forEach(n -> names.add(n.asText()));
-            imp = new Importance.Fold(ex.pipelines().get(f.get("pipeline").asInt()), f.get("repeat").asInt(),
+            if (f.has("names")) {
+                f.get("names").forEach(n -> names.add(n.asText()));
+            } else {
+                names.addAll(ClassifierStage.names(ex, pipeline.featureSet()));
+            }
+            imp = new Importance.Fold(pipeline, f.get("repeat").asInt(),
                     f.get("fold").asInt(), f.get("selected").asBoolean(), names, doubles(f.get("values")),
                     text(f.get("kind")));
         }

@@ -100,12 +100,12 @@ public final class ResultTables {
         for (String imputer : imputerNames(res)) {
             double[] sum = new double[names.size()];
             long n = 0;
-            for (RunResults.ImputationRow q : res.imputation()) {
-                if (q.imputer().equals(imputer) && q.absError() != null) {
+            for (RunResults.EdgeErrors e : res.edgeErrors()) {
+                if (e.imputer().equals(imputer)) {
                     for (int c = 0; c < sum.length; c++) {
-                        sum[c] += q.absError()[c];
+                        sum[c] += e.sum()[c];
                     }
-                    n++;
+                    n += e.subjects();
                 }
             }
             for (int c = 0; c < sum.length && n > 0; c++) {

@@ -28,7 +28,7 @@ class EdgeTableViewLoaderTest {
         assertEquals(0, v.regions());
         assertEquals(List.of("memory", "speed"), v.baseNames());
         assertEquals(List.of("007", "s2", "s3"), List.copyOf(v.subjects()));
-        assertArrayEquals(new double[] {-3, 0.4}, v.base("007"), 0.0);
+        assertArrayEquals(MatrixViewLoaderTest.single(-3, 0.4), v.base("007"), 0.0);
     }
 
     @Test
@@ -36,7 +36,7 @@ class EdgeTableViewLoaderTest {
         Path csv = write(dir, "t.csv", "memory,subject,speed\n1,007,2\n");
         View v = ViewLoader.edgeTable("cog", csv, "subject", IDS, true);
         assertEquals(List.of("memory", "speed"), v.baseNames());
-        assertArrayEquals(new double[] {1, 2}, v.base("007"), 0.0);
+        assertArrayEquals(MatrixViewLoaderTest.single(1, 2), v.base("007"), 0.0);
         assertFalse(v.has("s2"));
     }
 

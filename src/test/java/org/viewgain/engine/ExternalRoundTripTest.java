@@ -97,7 +97,27 @@ class ExternalRoundTripTest {
         assertEquals(byImputer.get("avg"), byImputer.get("ext"));
         Map<String, List<String>> quality = byImputer(run.resolve("imputation.csv"), 0);
         assertTrue(quality.get("avg").size() > 40, "test subjects with a target in 2 repeats");
-        assertEquals(quality.get("avg"), quality.get("ext"));
+        // The outside program averages the target files' exact values; the built-in imputer averages the view as
+        // stored, in single precision (relative rounding <= 6e-8 per value), and quality is measured on each one's
+        // unrounded result: equal to 1e-6, not bit for bit. Skill of a mean imputer against the mean is 0.
+        assertNumericallyEqual(quality.get("avg"), quality.get("ext"), 1e-6);
+    }
+
+    static void assertNumericallyEqual(List<String> expected, List<String> actual, double tolerance) {
+        assertEquals(expected.size(), actual.size());
+        for (int r = 0; r < expected.size(); r++) {
+            String[] e = expected.get(r).split(",", -1);
+            String[] a = actual.get(r).split(",", -1);
+            assertEquals(e.length, a.length, actual.get(r));
+            for (int c = 0; c < e.length; c++) {
+                if (e[c].matches("-?[0-9].*")) {
+                    assertEquals(Double.parseDouble(e[c]), Double.parseDouble(a[c]), tolerance,
+                            "row " + r + " column " + c + ": " + expected.get(r) + " vs " + actual.get(r));
+                } else {
+                    assertEquals(e[c], a[c], "row " + r + " column " + c);
+                }
+            }
+        }
     }
 
     @Test

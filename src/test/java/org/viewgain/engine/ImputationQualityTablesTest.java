@@ -7,6 +7,7 @@ import java.io.IOException;
 import java.io.StringWriter;
 import java.nio.file.Path;
 import java.util.List;
+import java.util.Map;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.viewgain.report.CsvTable;
@@ -53,8 +54,12 @@ class ImputationQualityTablesTest {
             assertEquals(0.0, a.skill(), 0.0);
             // skill = 1 - mae / mae_mean by definition (issue 4); 1e-12 is rounding
             assertEquals(1 - r.mae() / a.mae(), r.skill(), 1e-12);
-            assertEquals(3, r.absError().length);
-            assertEquals(r.mae(), (r.absError()[0] + r.absError()[1] + r.absError()[2]) / 3, 1e-12);
+        }
+        // the per-feature error sums hold the same errors as the rows: sum over features / width = sum of row MAEs
+        for (ImputedFold f : List.of(avg, ridge)) {
+            assertEquals(3, f.edgeErrors().length);
+            double rows = f.quality().stream().mapToDouble(ImputedFold.Quality::mae).sum();
+            assertEquals(rows, (f.edgeErrors()[0] + f.edgeErrors()[1] + f.edgeErrors()[2]) / 3, 1e-12);
         }
         // target = linear map of 4 source columns + noise sd 0.3 (TestCohorts): ridge must beat the mean overall
         double skill = ridge.quality().stream().mapToDouble(ImputedFold.Quality::skill).average().orElseThrow();
@@ -66,11 +71,17 @@ class ImputationQualityTablesTest {
         Experiment ex = experiment();
         double nan = Double.NaN;
         List<RunResults.ImputationRow> rows = List.of(
-                new RunResults.ImputationRow("avg", 0, 0, 0, 1, 2, 0.5, nan, 0, new double[] {1, 1, 1}),
-                new RunResults.ImputationRow("avg", 0, 0, 1, 3, 4, nan, nan, 0, new double[] {0, 3, 6}),
-                new RunResults.ImputationRow("avg", 0, 1, 2, 5, 6, 0.1, nan, 0, new double[] {5, 5, 5}),
-                new RunResults.ImputationRow("ridge", 0, 2, 3, 1, 1, 0.9, nan, 0.75, new double[] {2, 1, 0}));
-        RunResults res = new RunResults(ex, ex.plan(), List.of(), List.of(), rows, List.of(), List.of());
+                new RunResults.ImputationRow("avg", 0, 0, 0, 1, 2, 0.5, nan, 0),
+                new RunResults.ImputationRow("avg", 0, 0, 1, 3, 4, nan, nan, 0),
+                new RunResults.ImputationRow("avg", 0, 1, 2, 5, 6, 0.1, nan, 0),
+                new RunResults.ImputationRow("ridge", 0, 2, 3, 1, 1, 0.9, nan, 0.75));
+        // per-feature absolute errors of the four rows: {1,1,1}, {0,3,6}, {5,5,5}, {2,1,0}, summed per fold
+        List<RunResults.EdgeErrors> edgeErrors = List.of(
+                new RunResults.EdgeErrors("avg", 0, 0, 2, new double[] {1, 4, 7}),
+                new RunResults.EdgeErrors("avg", 0, 1, 1, new double[] {5, 5, 5}),
+                new RunResults.EdgeErrors("ridge", 0, 2, 1, new double[] {2, 1, 0}));
+        RunResults res = new RunResults(ex, ex.plan(), List.of(), List.of(), rows, edgeErrors, List.of(), List.of(),
+                Map.of());
         List<String> summary = lines(ResultTables.imputationSummary(res));
         assertEquals("imputer,n_subject_folds,n_folds,mae_mean,mae_sd,rmse_mean,pearson_r_mean,strength_mae_mean,"
                 + "skill_mean", summary.get(0));

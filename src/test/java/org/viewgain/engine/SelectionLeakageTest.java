@@ -54,7 +54,7 @@ class SelectionLeakageTest {
         Experiment all = Setup.prepare(SpecLoader.load(TestCohorts.spec(dir, BODY.formatted(""))));
         StudyData d = all.data();
         List<String> ids = d.subjects().stream().map(s -> s.id()).toList();
-        Rows rows = new Rows(ids, d.sourceFeatures(), d.sourceNames());
+        Rows rows = new Rows(ids, d.sourceMatrix(), d.sourceNames());
         FitContext ctx = new FitContext(0, 0, 0, FitContext.WHOLE, FitContext.Role.FINAL, 1L);
         SelectTopK.Selection leaked = new SelectTopK("t-test", 100).fit(ctx, rows, d.y());
         Rows kept = leaked.apply(rows);
