@@ -142,6 +142,11 @@ public final class StudyData {
         return out;
     }
 
+    /** Subject {@code i}'s source features as stored (shared; for checks of the storage, never written). */
+    float[] storedSource(int i) {
+        return sourceFeatures[i];
+    }
+
     static void widen(float[] src, double[] dst, int at) {
         for (int c = 0; c < src.length; c++) {
             dst[at + c] = src[c];
