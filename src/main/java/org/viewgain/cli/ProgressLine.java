@@ -4,7 +4,10 @@ import java.io.PrintWriter;
 import java.util.Locale;
 import org.viewgain.engine.Progress;
 
-/** A progress line on stderr: done/total, rate and time left; redrawn in place on a terminal. */
+/**
+ * A progress line on stderr: done/total, rate and time left; redrawn in place on a terminal, otherwise (a log file,
+ * a cluster job) printed at every tenth of the work and at least once a minute while units finish.
+ */
 final class ProgressLine implements Progress {
     private final PrintWriter err;
     private final boolean terminal;
@@ -22,7 +25,9 @@ final class ProgressLine implements Progress {
         long now = System.nanoTime();
         int decile = (int) (10 * done / Math.max(1, total));
         boolean last = done >= total;
-        if (terminal ? now - lastPrint < 250_000_000L && !last : decile == lastDecile && !last) {
+        boolean due = terminal ? now - lastPrint >= 250_000_000L
+                : decile != lastDecile || now - lastPrint >= 60_000_000_000L;
+        if (!due && !last) {
             return;
         }
         lastPrint = now;

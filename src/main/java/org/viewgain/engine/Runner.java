@@ -203,7 +203,9 @@ public final class Runner {
 
     private RunResults execute(Shard shard) {
         FoldPlan plan = ex.plan();
-        Counter counter = new Counter(units());
+        List<String> mine = unitKeys(shard);
+        // a shard counts its own share; a whole run also counts the permutations it plans
+        Counter counter = new Counter(shard == null ? units() : mine.size());
         ExecutorService pool = Executors.newFixedThreadPool(threads, r -> {
             Thread t = new Thread(r, "viewgain-worker");
             t.setDaemon(true);
@@ -221,7 +223,6 @@ public final class Runner {
                 state.innerOf[rf[2]] = InnerFolds.of(ex, rf[0], rf[1]);
             }
             state.imputed = new ImputedFold[state.folds.size()][ex.imputers().size()];
-            List<String> mine = unitKeys(shard);
             Set<Integer> needed = new TreeSet<>();
             boolean allSlots = false;
             for (String key : mine) {
@@ -238,7 +239,7 @@ public final class Runner {
                 needed.clear();
                 state.folds.forEach(rf -> needed.add(rf[2]));
             }
-            impute(state, needed, pool, shard);
+            impute(state, needed, pool, shard, counter, true);
             // phase two: pipelines
             ClassifierStage stage = new ClassifierStage(ex);
             List<Callable<Void>> tasks = new ArrayList<>();
@@ -260,7 +261,7 @@ public final class Runner {
             invokeAll(pool, tasks);
             Permutations perm = new Permutations(ex, state, (p, k) -> (Double) known(UnitCodec.permutationKey(p, k)),
                     (p, k, v) -> record(UnitCodec.permutationKey(p, k), v), () -> impute(state,
-                    allFolds(state), pool, null));
+                    allFolds(state), pool, null, counter, false));
             if (shard != null) {
                 List<Callable<Void>> perms = new ArrayList<>();
                 String metric = ex.spec().significance().metric();
@@ -305,8 +306,12 @@ public final class Runner {
         return all;
     }
 
-    /** Fits the imputers in the given folds unless done already, recording the summaries this run owns. */
-    private void impute(State state, Set<Integer> slots, ExecutorService pool, Shard shard) {
+    /**
+     * Fits the imputers in the given folds unless done already, recording the summaries this run owns (and counting
+     * them as finished units when {@code counted}: a unit journaled earlier was counted when the run started).
+     */
+    private void impute(State state, Set<Integer> slots, ExecutorService pool, Shard shard, Counter counter,
+                        boolean counted) {
         if (!anyImputed()) {
             return;
         }
@@ -326,6 +331,9 @@ public final class Runner {
                     state.imputed[slot][mm] = fi;
                     if (owned && known(key) == null) {
                         record(key, summary(rf, mm, fi));
+                        if (counted) {
+                            counter.done();
+                        }
                     }
                     return null;
                 });
