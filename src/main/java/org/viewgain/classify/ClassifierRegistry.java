@@ -14,8 +14,8 @@ public final class ClassifierRegistry {
 
     static {
         FACTORIES.put("random-forest", SmileForest::new);
-        FACTORIES.put("svm-linear", () -> new SmileSvm(false));
-        FACTORIES.put("svm-rbf", () -> new SmileSvm(true));
+        FACTORIES.put("svm-linear", LinearSvm::new);
+        FACTORIES.put("svm-rbf", SmileSvm::new);
         FACTORIES.put("logistic", SmileLogistic::new);
         FACTORIES.put("lda", SmileLda::new);
         FACTORIES.put("knn", SmileKnn::new);

@@ -10,44 +10,32 @@ import org.viewgain.spec.Params;
 import smile.classification.SVM;
 import smile.math.MathEx;
 import smile.math.kernel.GaussianKernel;
-import smile.math.kernel.LinearKernel;
 import smile.math.kernel.MercerKernel;
 
 /**
- * {@code svm-linear} and {@code svm-rbf}: support vector machines (Cortes &amp; Vapnik 1995, Machine Learning
- * 20:273-297) trained by Smile's LASVM solver (Bordes et al. 2005, JMLR 6:1579-1619). Two classes: one machine with
+ * {@code svm-rbf}: a support vector machine (Cortes &amp; Vapnik 1995, Machine Learning 20:273-297) with the RBF
+ * kernel, trained by Smile's LASVM solver (Bordes et al. 2005, JMLR 6:1579-1619). Two classes: one machine with
  * class 1 as the positive side; more classes: one machine per class against the rest, fitted one after another.
  * Scores are decision values (not probabilities): for two classes {@code scores[i][1]} is the decision value and
- * {@code scores[i][0]} its negative, which orders subjects for AUC.
+ * {@code scores[i][0]} its negative, which orders subjects for AUC. ({@code svm-linear} is {@link LinearSvm}.)
  *
- * <p>RBF kernel {@code exp(-gamma * |x - x'|^2)}; {@code gamma: scale} means {@code 1 / (p * var)} with {@code var}
- * the variance of all training values (population form), as scikit-learn's default. LASVM visits the rows in a random
+ * <p>Kernel {@code exp(-gamma * |x - x'|^2)}; {@code gamma: scale} means {@code 1 / (p * var)} with {@code var} the
+ * variance of all training values (population form), as scikit-learn's default. LASVM visits the rows in a random
  * order, so Smile's thread-local generator is seeded right before each machine is fitted, on the fitting thread.
- * Importance (linear kernel only): absolute weights {@code w = sum_i alpha_i x_i} on standardized inputs, the mean
- * over machines for more than two classes, kind {@code abs_weight}.
  */
 public final class SmileSvm implements ClassifierMethod {
 
-    private final boolean rbf;
-
-    /** @param rbf true for {@code svm-rbf}, false for {@code svm-linear} */
-    public SmileSvm(boolean rbf) {
-        this.rbf = rbf;
-    }
-
     @Override
     public String method() {
-        return rbf ? "svm-rbf" : "svm-linear";
+        return "svm-rbf";
     }
 
     @Override
     public List<ParamDef> parameters() {
         List<ParamDef> defs = new ArrayList<>();
         defs.add(ParamDef.number("C", Double.MIN_VALUE, Double.MAX_VALUE, 1.0, "soft-margin penalty"));
-        if (rbf) {
-            defs.add(ParamDef.numberOrChoice("gamma", Double.MIN_VALUE, Double.MAX_VALUE, List.of("scale"), "scale",
-                    "RBF kernel width exp(-gamma |x-x'|^2); scale = 1/(features * variance of training values)"));
-        }
+        defs.add(ParamDef.numberOrChoice("gamma", Double.MIN_VALUE, Double.MAX_VALUE, List.of("scale"), "scale",
+                "RBF kernel width exp(-gamma |x-x'|^2); scale = 1/(features * variance of training values)"));
         defs.add(ParamDef.number("tolerance", Double.MIN_VALUE, 1, 1e-3, "LASVM stopping tolerance"));
         defs.add(ParamDef.integer("epochs", 1, 1000, 1, "LASVM passes over the training rows"));
         return defs;
@@ -82,13 +70,8 @@ public final class SmileSvm implements ClassifierMethod {
     @Override
     public Model fit(FitContext ctx, Rows x, int[] y, int classes, Params params) {
         TrainingLabels.check(method(), x, y, classes);
-        MercerKernel<double[]> kernel;
-        if (rbf) {
-            // Smile's Gaussian kernel is exp(-|x-x'|^2 / (2 sigma^2)), so sigma = sqrt(1 / (2 gamma)).
-            kernel = new GaussianKernel(Math.sqrt(1.0 / (2.0 * gamma(params.get("gamma"), x.x()))));
-        } else {
-            kernel = new LinearKernel();
-        }
+        // Smile's Gaussian kernel is exp(-|x-x'|^2 / (2 sigma^2)), so sigma = sqrt(1 / (2 gamma)).
+        MercerKernel<double[]> kernel = new GaussianKernel(Math.sqrt(1.0 / (2.0 * gamma(params.get("gamma"), x.x()))));
         int machines = classes == 2 ? 1 : classes;
         List<SVM<double[]>> fitted = new ArrayList<>(machines);
         for (int m = 0; m < machines; m++) {
@@ -119,20 +102,6 @@ public final class SmileSvm implements ClassifierMethod {
             }
             return new Predictions(labels, scores);
         };
-        if (rbf) {
-            return model;
-        }
-        // a linear machine's weight vector is the weighted sum of its support vectors
-        double[][] w = new double[machines][x.p()];
-        for (int m = 0; m < machines; m++) {
-            double[][] sv = fitted.get(m).vectors();
-            double[] alpha = fitted.get(m).weights();
-            for (int i = 0; i < sv.length; i++) {
-                for (int j = 0; j < x.p(); j++) {
-                    w[m][j] += alpha[i] * sv[i][j];
-                }
-            }
-        }
-        return new Explained(model, Explained.absWeights(w, x.x()), Explained.ABS_WEIGHT);
+        return model;
     }
 }
