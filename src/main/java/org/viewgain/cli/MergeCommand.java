@@ -120,7 +120,7 @@ final class MergeCommand implements Callable<Integer> {
         } catch (RuntimeException | Error e) {
             return Failure.report(cl, common, folder, prov, e);
         }
-        return RunCommand.finish(cl, ex, folder, prov, results, start);
+        return RunCommand.finish(cl, common, ex, folder, prov, results, start);
     }
 
     private static Map<String, Object> withoutShard(Map<String, Object> id) {

@@ -139,7 +139,7 @@ final class RunCommand implements Callable<Integer> {
             return 0;
         }
         try {
-            return finish(cl, ex, folder, prov, results, start);
+            return finish(cl, common, ex, folder, prov, results, start);
         } catch (IOException | RuntimeException e) {
             return Failure.report(cl, common, folder, prov, e); // e.g. disk full while writing the tables
         }
@@ -153,10 +153,15 @@ final class RunCommand implements Callable<Integer> {
     }
 
     /** Writes the tables, run.json (complete) and the report of finished results; prints the summary. */
-    static int finish(CommandLine cl, Experiment ex, RunFolder folder, Provenance prov, RunResults results,
-                      Instant start) throws IOException {
+    static int finish(CommandLine cl, Common common, Experiment ex, RunFolder folder, Provenance prov,
+                      RunResults results, Instant start) throws IOException {
         PrintWriter out = cl.getOut();
         PrintWriter err = cl.getErr();
+        if (!common.quiet) {
+            // intervals, comparisons, the separation test and the report can take minutes on a large cohort
+            err.println("[viewgain] all units done; computing the tables, the separation test and the report");
+            err.flush();
+        }
         List<Evaluation.MetricRow> metrics = Evaluation.metrics(results);
         Instant end = Instant.now();
         prov.put("finished_at", end.toString())

@@ -102,4 +102,27 @@ class PermanovaTest {
         assertThrows(IllegalArgumentException.class, () -> Permanova.exact(new double[60][60], halves));
         assertTrue(Double.isNaN(Permanova.pseudoF(new double[60][60], halves)));
     }
+
+    @Test
+    void givenRowsSpanningSeveralTilesAndChunks_whenEuclidean_thenTheTextbookSumToRounding() {
+        // 70 rows (three tiles of 32) x 3,001 columns (two full chunks of 1,024 and a ragged rest), random values
+        java.util.SplittableRandom rnd = new java.util.SplittableRandom(8);
+        double[][] x = new double[70][3001];
+        for (double[] r : x) {
+            for (int k = 0; k < r.length; k++) {
+                r[k] = rnd.nextGaussian();
+            }
+        }
+        double[][] d = Distances.euclidean(x);
+        for (int i = 0; i < x.length; i++) {
+            assertEquals(0.0, d[i][i], 0.0);
+            for (int j = 0; j < x.length; j++) {
+                double s = 0;
+                for (int k = 0; k < x[i].length; k++) {
+                    s += (x[i][k] - x[j][k]) * (x[i][k] - x[j][k]);
+                }
+                assertEquals(Math.sqrt(s), d[i][j], 1e-12 * Math.sqrt(s), i + "," + j);
+            }
+        }
+    }
 }
