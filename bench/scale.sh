@@ -3,8 +3,9 @@
 # subjects with 100 and 268 regions), writes an invented cohort with org.viewgain.demo.ScaleCohort under
 # bench/work/, fills bench/specs/scale-template.yaml in, and times `viewgain run` with /usr/bin/time -v and the
 # JVM's GC log. One row per size goes to bench/scale-results.md: wall, user+sys CPU, peak RSS (the whole process,
-# which includes heap the JVM reserved but did not need) and the largest heap occupancy after a collection (what
-# the run really kept alive), with the load average before the run.
+# which includes heap the JVM reserved but did not need), the largest heap occupancy after any collection (an upper
+# bound: a young collection leaves old garbage in place) and the largest occupancy after a marking cycle's remark
+# (close to what the run really kept alive), with the load average before the run.
 #   bench/scale.sh [SIZE...]       env: JAVA_OPTS (-Xmx8g), THREADS (nproc), TIMEOUT per run (5400 s)
 set -euo pipefail
 here="$(cd "$(dirname "${BASH_SOURCE[0]}")" && pwd)"
@@ -27,10 +28,11 @@ if [ ! -f "$results" ]; then
     echo "# viewgain scale benchmark (bench/scale.sh)"
     echo
     echo "Spec: bench/specs/scale-template.yaml (Weka random forest + linear SVM, ridge imputer, 3 feature sets, 5 x 1"
-    echo "folds). Peak RSS is the whole process; 'heap after GC' is the largest heap occupancy right after a collection."
+    echo "folds). Peak RSS is the whole process; 'after GC' is the largest heap occupancy right after any collection"
+    echo "(an upper bound on live data); 'after remark' the largest after a marking cycle ('-' when none ran)."
     echo
-    echo "| date (UTC) | commit | size | edges/view | wall s | user+sys CPU s | peak RSS MB | heap after GC MB | JAVA_OPTS | threads | load before | exit |"
-    echo "|---|---|---|---|---|---|---|---|---|---|---|---|"
+    echo "| date (UTC) | commit | size | edges/view | wall s | user+sys CPU s | peak RSS MB | after GC MB | after remark MB | JAVA_OPTS | threads | load before | exit |"
+    echo "|---|---|---|---|---|---|---|---|---|---|---|---|---|"
   } > "$results"
 fi
 
@@ -55,8 +57,9 @@ for size in "${sizes[@]}"; do
   rss="$(awk -F': ' '/Maximum resident set size/ {printf "%.0f", $2/1024}' "$log")"
   # "Pause Young (Normal) (G1 Evacuation Pause) 3012M->1480M(8192M)": the largest value after the arrow
   heap="$(grep -o '[0-9]*M->[0-9]*M' "$gc" | sed 's/.*->//; s/M//' | sort -n | tail -1)"
+  live="$(grep 'Pause Remark' "$gc" | grep -o '[0-9]*M->[0-9]*M' | sed 's/.*->//; s/M//' | sort -n | tail -1)"
   edges=$(( r * (r - 1) / 2 ))
-  echo "| $(date -u +%Y-%m-%dT%H:%M) | $(cd "$root" && git rev-parse --short HEAD) | $size | $edges | $wall | $cpu | $rss | ${heap:-?} | $opts | $threads | $load | $code |" >> "$results"
-  echo "[scale] $size: wall ${wall}s, cpu ${cpu}s, peak RSS ${rss} MB, heap after GC ${heap:-?} MB, exit $code" >&2
+  echo "| $(date -u +%Y-%m-%dT%H:%M) | $(cd "$root" && git rev-parse --short HEAD) | $size | $edges | $wall | $cpu | $rss | ${heap:-?} | ${live:--} | $opts | $threads | $load | $code |" >> "$results"
+  echo "[scale] $size: wall ${wall}s, cpu ${cpu}s, peak RSS ${rss} MB, after GC ${heap:-?} MB, after remark ${live:--} MB, exit $code" >&2
 done
 cat "$results"
