@@ -96,7 +96,7 @@ final class ImputationStage {
         }
         if (!crossFit) {
             for (int i : withTarget) {
-                out[i] = ImputedFold.compact(d.target().base(d.id(i)));
+                out[i] = d.target().stored(d.id(i)); // shared with the view, not copied
             }
         }
         List<ImputedFold.Quality> quality = new ArrayList<>();

@@ -9,7 +9,8 @@ import org.viewgain.spec.Params;
  *
  * @param imputed     imputed target base vector per subject position (null outside the outer fold's subjects), kept
  *                    in single precision: these stay in memory for the whole run (the permutation phase reuses
- *                    them), and at 1,000 subjects x 35,778 edges a fold's doubles alone take 286 MB
+ *                    them), and at 1,000 subjects x 35,778 edges a fold's doubles alone take 286 MB; read only (in
+ *                    {@code observed} mode a training subject's row is the target view's stored array itself)
  * @param chosen      the grid point chosen by inner cross-validation
  * @param innerMae    the inner cross-validated MAE of the chosen point (NaN when no tuning was needed)
  * @param quality     one row per outer-test subject with an observed target
