@@ -77,6 +77,7 @@ public final class CheckReport {
         }
         b.append("model fits in this run: ").append(ex.modelFits()).append('\n');
         b.append('\n').append(duplicates(ex, 20));
+        b.append(costWarning(ex).replace("[viewgain] warning: ", ""));
         return b.toString();
     }
 
@@ -126,6 +127,32 @@ public final class CheckReport {
     /** The warning a run prints to stderr before it starts; empty when there are no possible duplicates. */
     public static String duplicateWarning(Experiment ex) {
         return ex.duplicates().isEmpty() ? "" : "[viewgain] warning: " + duplicates(ex, 5);
+    }
+
+    /** Features per subject above which Smile's forest is flagged (measured, docs/benchmarks.md). */
+    static final int WIDE_FOR_SMILE_FOREST = 2_000;
+
+    /**
+     * A warning when Smile's random forest will meet wide inputs: its trees re-sort every feature at every split, so
+     * a fit costs about features x subjects x depth whatever {@code features-per-split} is (400 subjects x 9,900
+     * features did not finish in 30 minutes; docs/benchmarks.md). Empty when no such pipeline is planned.
+     */
+    public static String costWarning(Experiment ex) {
+        int widest = 0;
+        for (org.viewgain.engine.Pipeline p : ex.pipelines()) {
+            if (ex.classifier(p.classifier()).method().method().equals("random-forest")) {
+                widest = Math.max(widest, ex.data().featureNames(p.featureSet()).size());
+            }
+        }
+        if (ex.prep().selects()) {
+            widest = Math.min(widest, ex.prep().keep().stream().mapToInt(Integer::intValue).max().orElse(widest));
+        }
+        if (widest <= WIDE_FOR_SMILE_FOREST) {
+            return "";
+        }
+        return "[viewgain] warning: random-forest (Smile) will see up to " + widest + " features per subject; its "
+                + "trees re-sort every feature at every split, so this can take hours (docs/benchmarks.md). "
+                + "Consider features.select, or method weka with class weka.classifiers.trees.RandomForest\n";
     }
 
     private static String describe(org.viewgain.cohort.View v) {
