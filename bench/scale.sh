@@ -21,6 +21,8 @@ mkdir -p "$work/specs"
 
 echo "[scale] building the jar" >&2
 (cd "$root" && mvn -q -o -B -Dmaven.test.skip=true package)
+# the commit the jar was built from (a '+' when the working tree had changes)
+commit="$(cd "$root" && git rev-parse --short HEAD)$(cd "$root" && git diff --quiet HEAD -- src pom.xml || echo +)"
 
 results="$here/scale-results.md"
 if [ ! -f "$results" ]; then
@@ -59,7 +61,7 @@ for size in "${sizes[@]}"; do
   heap="$(grep -o '[0-9]*M->[0-9]*M' "$gc" | sed 's/.*->//; s/M//' | sort -n | tail -1)"
   live="$(grep 'Pause Remark' "$gc" | grep -o '[0-9]*M->[0-9]*M' | sed 's/.*->//; s/M//' | sort -n | tail -1)"
   edges=$(( r * (r - 1) / 2 ))
-  echo "| $(date -u +%Y-%m-%dT%H:%M) | $(cd "$root" && git rev-parse --short HEAD) | $size | $edges | $wall | $cpu | $rss | ${heap:-?} | ${live:--} | $opts | $threads | $load | $code |" >> "$results"
+  echo "| $(date -u +%Y-%m-%dT%H:%M) | $commit | $size | $edges | $wall | $cpu | $rss | ${heap:-?} | ${live:--} | $opts | $threads | $load | $code |" >> "$results"
   echo "[scale] $size: wall ${wall}s, cpu ${cpu}s, peak RSS ${rss} MB, after GC ${heap:-?} MB, after remark ${live:--} MB, exit $code" >&2
 done
 cat "$results"

@@ -90,8 +90,11 @@ final class ClassifierStage {
         long seed = ex.spec().seed();
         FitContext prepCtx = base.at(FitContext.WHOLE, FitContext.Role.FINAL,
                 Seeds.derive(seed, "prep", permutation, repeat, fold, "final", p.label()));
-        FitChain.Steps steps = FitChain.upstream(ex, prepCtx, trainRows, yTrain);
-        Rows in = steps.apply(trainRows);
+        // the training block is not read again: the upstream steps may write over it instead of copying it
+        FitChain.Upstream upstream = FitChain.upstream(ex, prepCtx, trainRows, yTrain, true);
+        trainRows = null;
+        FitChain.Steps steps = upstream.steps();
+        Rows in = upstream.transformed();
         Transform.Fitted sel = FitChain.selection(ex, prepCtx, in, yTrain, chosen.selection());
         if (sel != null) {
             steps = steps.then(sel);
@@ -146,8 +149,10 @@ final class ClassifierStage {
             FitContext prepCtx = base.at(j, FitContext.Role.TUNE, Seeds.derive(seed, "prep", base.permutation(),
                     base.repeat(), base.outerFold(), j, p.label()));
             Rows fitRows = trainRows.select(fp);
-            FitChain.Steps up = FitChain.upstream(ex, prepCtx, fitRows, yFit);
-            Rows fitUp = up.apply(fitRows);
+            // fitRows shares its arrays with trainRows, which later inner folds read: not owned
+            FitChain.Upstream fitted = FitChain.upstream(ex, prepCtx, fitRows, yFit, false);
+            FitChain.Steps up = fitted.steps();
+            Rows fitUp = fitted.transformed();
             Rows valUp = up.apply(trainRows.select(vp));
             Transform.Fitted sel = null;
             int selFor = Integer.MIN_VALUE;

@@ -46,18 +46,28 @@ final class FitChain {
         }
     }
 
-    /** Fits adjustment, harmonization and scaling (those configured) in order on {@code x}. */
-    static Steps upstream(Experiment ex, FitContext ctx, Rows x, int[] y) {
+    /** Fitted upstream steps and the training rows they produced. */
+    record Upstream(Steps steps, Rows transformed) {
+    }
+
+    /**
+     * Fits adjustment, harmonization and scaling (those configured) in order on {@code x}, each on the output of the
+     * one before, and returns them with the transformed training rows. With {@code owned} the caller gives up
+     * {@code x} (its arrays may be overwritten: no second copy of the block); otherwise the first step copies.
+     */
+    static Upstream upstream(Experiment ex, FitContext ctx, Rows x, int[] y, boolean owned) {
         List<Transform.Fitted> steps = new ArrayList<>();
         Rows cur = x;
+        boolean mine = owned;
         for (Transform t : new Transform[] {ex.prep().adjuster(), ex.prep().harmonizer(), ex.scaler()}) {
             if (t != null) {
                 Transform.Fitted f = t.fit(ctx, cur, y);
                 steps.add(f);
-                cur = f.apply(cur);
+                cur = mine ? f.applyInPlace(cur) : f.apply(cur);
+                mine = true; // from here on the rows are this chain's own copy
             }
         }
-        return new Steps(steps);
+        return new Upstream(new Steps(steps), cur);
     }
 
     /**

@@ -31,15 +31,25 @@ public final class Standardize implements Transform {
             }
             sd[j] = n > 1 ? Math.sqrt(ss / (n - 1)) : 0;
         }
-        return rows -> {
-            double[][] out = new double[rows.n()][p];
-            for (int i = 0; i < rows.n(); i++) {
-                double[] r = rows.x()[i];
-                for (int j = 0; j < p; j++) {
-                    out[i][j] = sd[j] > 0 ? (r[j] - mean[j]) / sd[j] : 0;
+        return new Fitted() {
+            @Override
+            public Rows apply(Rows rows) {
+                double[][] out = new double[rows.n()][];
+                for (int i = 0; i < rows.n(); i++) {
+                    out[i] = rows.x()[i].clone();
                 }
+                return applyInPlace(rows.withValues(out, rows.featureNames()));
             }
-            return rows.withValues(out, rows.featureNames());
+
+            @Override
+            public Rows applyInPlace(Rows rows) {
+                for (double[] r : rows.x()) {
+                    for (int j = 0; j < p; j++) {
+                        r[j] = sd[j] > 0 ? (r[j] - mean[j]) / sd[j] : 0;
+                    }
+                }
+                return rows;
+            }
         };
     }
 }

@@ -17,6 +17,15 @@ public interface Transform {
 
     /** A fitted step. */
     interface Fitted {
+        /** The transformed rows, in new arrays; {@code rows} is left as it was. */
         Rows apply(Rows rows);
+
+        /**
+         * The transformed rows, possibly written over {@code rows}' own arrays (saving a copy of a block that can be
+         * hundreds of megabytes). Only for rows the caller owns, shares with no one and will not read again.
+         */
+        default Rows applyInPlace(Rows rows) {
+            return apply(rows);
+        }
     }
 }
