@@ -42,12 +42,18 @@ public final class Extractors {
         return List.copyOf(names);
     }
 
-    /** The features of one base vector (observed or imputed), in the order of {@link #names}. */
+    /**
+     * The features of one base vector (observed or imputed), in the order of {@link #names}: {@code base} itself
+     * (not a copy) for {@code edges} alone, else a new array.
+     */
     public static double[] apply(List<String> extract, View view, double[] base) {
         check(extract, view);
         if (base.length != view.width()) {
             throw new IllegalArgumentException("view " + view.name() + ": base vector of length " + base.length
                     + ", expected " + view.width());
+        }
+        if (extract.size() == 1 && extract.get(0).equals(EDGES)) {
+            return base;
         }
         List<double[]> parts = new ArrayList<>();
         int total = 0;

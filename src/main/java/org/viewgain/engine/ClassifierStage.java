@@ -238,15 +238,6 @@ final class ClassifierStage {
         return new Rows(ids, x, names);
     }
 
-    List<String> names(FeatureSet fs) {
-        return ex.data().featureNames(fs);
-    }
-
-    /** Prefixed feature names of a feature set: {@code source:}, then {@code target:} or {@code imputed:}. */
-    static List<String> names(Experiment ex, FeatureSet fs) {
-        return ex.data().featureNames(fs);
-    }
-
     private static int[] pick(int[] all, int[] positions) {
         int[] r = new int[positions.length];
         for (int t = 0; t < positions.length; t++) {

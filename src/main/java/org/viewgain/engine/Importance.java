@@ -52,7 +52,7 @@ public final class Importance {
             if (mine.isEmpty()) {
                 continue;
             }
-            List<String> names = ClassifierStage.names(ex, p.featureSet());
+            List<String> names = ex.data().featureNames(p.featureSet());
             Map<String, Integer> column = new HashMap<>();
             for (int j = 0; j < names.size(); j++) {
                 column.put(names.get(j), j);

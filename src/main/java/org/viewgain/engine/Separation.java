@@ -2,7 +2,10 @@ package org.viewgain.engine;
 
 import java.util.ArrayList;
 import java.util.List;
+import org.viewgain.cohort.Rows;
+import org.viewgain.folds.FitContext;
 import org.viewgain.folds.Seeds;
+import org.viewgain.prep.Standardize;
 import org.viewgain.spec.Params;
 import org.viewgain.stats.Distances;
 import org.viewgain.stats.Permanova;
@@ -55,8 +58,10 @@ public final class Separation {
             for (int k = 0; k < members.size(); k++) {
                 groups[k] = ex.data().y()[positions[k]];
             }
-            double[][] x = ClassifierStage.rows(ex, p.featureSet(), positions, imputed).x();
-            standardize(x);
+            // each feature standardized over these subjects (the same step as in the fits, fitted on all of them)
+            Rows rows = ClassifierStage.rows(ex, p.featureSet(), positions, imputed);
+            FitContext ctx = new FitContext(0, 0, 0, FitContext.WHOLE, FitContext.Role.FINAL, 0L);
+            double[][] x = new Standardize().fit(ctx, rows, groups).applyInPlace(rows).x();
             double[][] d = Distances.euclidean(x);
             Permanova.Result r = Permanova.monteCarlo(d, groups, PERMUTATIONS,
                     Seeds.derive(ex.spec().seed(), "separation", p.featureSet().label(), p.imputer()));
@@ -77,25 +82,5 @@ public final class Separation {
             }
         }
         return new ImputedFold(out, Params.NONE, Double.NaN, List.of(), null);
-    }
-
-    private static void standardize(double[][] x) {
-        int n = x.length;
-        int p = x[0].length;
-        for (int j = 0; j < p; j++) {
-            double m = 0;
-            for (double[] r : x) {
-                m += r[j];
-            }
-            m /= n;
-            double s = 0;
-            for (double[] r : x) {
-                s += (r[j] - m) * (r[j] - m);
-            }
-            double sd = Math.sqrt(s / (n - 1));
-            for (double[] r : x) {
-                r[j] = sd > 0 ? (r[j] - m) / sd : 0;
-            }
-        }
     }
 }

@@ -89,7 +89,7 @@ final class UnitCodec {
                     .put("selected", f.selected()).put("kind", f.kind());
             // the names are written only when they are not the feature set's own (selection): 71,556 names per
             // unit would dominate the journal at 268 regions
-            if (!f.inputNames().equals(ClassifierStage.names(ex, f.pipeline().featureSet()))) {
+            if (!f.inputNames().equals(ex.data().featureNames(f.pipeline().featureSet()))) {
                 ArrayNode names = imp.putArray("names");
                 f.inputNames().forEach(names::add);
             }
@@ -113,7 +113,7 @@ final class UnitCodec {
             if (f.has("names")) {
                 f.get("names").forEach(n -> names.add(n.asText()));
             } else {
-                names.addAll(ClassifierStage.names(ex, pipeline.featureSet()));
+                names.addAll(ex.data().featureNames(pipeline.featureSet()));
             }
             imp = new Importance.Fold(pipeline, f.get("repeat").asInt(),
                     f.get("fold").asInt(), f.get("selected").asBoolean(), names, doubles(f.get("values")),

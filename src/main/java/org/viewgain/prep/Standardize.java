@@ -22,14 +22,17 @@ public final class Standardize implements Transform {
             throw new IllegalArgumentException("standardize: no training rows");
         }
         double[] mean = ColumnStats.means(train.x(), p);
+        // row by row (each column still sums its rows in order): a column-wise pass strides through every row
+        // for every column, which is slow on blocks of tens of thousands of columns
         double[] sd = new double[p];
-        for (int j = 0; j < p; j++) {
-            double ss = 0;
-            for (double[] r : train.x()) {
+        for (double[] r : train.x()) {
+            for (int j = 0; j < p; j++) {
                 double d = r[j] - mean[j];
-                ss += d * d;
+                sd[j] += d * d;
             }
-            sd[j] = n > 1 ? Math.sqrt(ss / (n - 1)) : 0;
+        }
+        for (int j = 0; j < p; j++) {
+            sd[j] = n > 1 ? Math.sqrt(sd[j] / (n - 1)) : 0;
         }
         return new Fitted() {
             @Override

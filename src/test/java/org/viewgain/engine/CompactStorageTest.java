@@ -60,8 +60,9 @@ class CompactStorageTest {
         // a unit may transform its rows in place without touching the shared data
         row[0] = 1e9;
         assertEquals(stored[0], d.sourceFeatures(0)[0], 0.0);
-        // the prefixed names are one shared list per feature set
-        assertSame(d.featureNames(FeatureSet.SOURCE_IMPUTED), ClassifierStage.names(ex, FeatureSet.SOURCE_IMPUTED));
+        // the prefixed names are one shared list per feature set, not rebuilt for every block of rows
+        assertSame(d.featureNames(FeatureSet.SOURCE),
+                ClassifierStage.rows(ex, FeatureSet.SOURCE, new int[] {1, 2}, none).featureNames());
     }
 
     @Test
