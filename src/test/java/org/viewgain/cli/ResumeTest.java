@@ -57,8 +57,16 @@ class ResumeTest {
         Path journal = null;
         long deadline = System.nanoTime() + TimeUnit.SECONDS.toNanos(60);
         while (System.nanoTime() < deadline && child.isAlive()) {
-            if (Files.isDirectory(killedRoot.resolve("synthetic"))) {
-                journal = RunTables.only(killedRoot, "synthetic").resolve(Journal.FILE);
+            // the experiment folder appears a moment before the run folder inside it: wait for both
+            Path experiment = killedRoot.resolve("synthetic");
+            List<Path> runs = List.of();
+            if (Files.isDirectory(experiment)) {
+                try (var s = Files.list(experiment)) {
+                    runs = s.filter(Files::isDirectory).toList();
+                }
+            }
+            if (runs.size() == 1) {
+                journal = runs.get(0).resolve(Journal.FILE);
                 if (lines(journal) >= 12) {
                     break;
                 }
