@@ -59,5 +59,14 @@ public interface ClassifierMethod {
         default String importanceKind() {
             return null;
         }
+
+        /**
+         * False when an iterative solver stopped at its limit (e.g. {@code svm-linear}'s {@code iterations}) before
+         * its own stopping rule held: the model is usable but not the optimum the method defines. Runs count such
+         * fits and say so (hyperparameters.csv {@code unconverged_fits}, a warning, the report).
+         */
+        default boolean converged() {
+            return true;
+        }
     }
 }

@@ -14,11 +14,17 @@ final class Explained implements ClassifierMethod.Model {
     private final ClassifierMethod.Model inner;
     private final double[] importance;
     private final String kind;
+    private final boolean converged;
 
     Explained(ClassifierMethod.Model inner, double[] importance, String kind) {
+        this(inner, importance, kind, inner.converged());
+    }
+
+    Explained(ClassifierMethod.Model inner, double[] importance, String kind, boolean converged) {
         this.inner = inner;
         this.importance = importance.clone();
         this.kind = kind;
+        this.converged = converged;
     }
 
     @Override
@@ -34,6 +40,11 @@ final class Explained implements ClassifierMethod.Model {
     @Override
     public String importanceKind() {
         return kind;
+    }
+
+    @Override
+    public boolean converged() {
+        return converged;
     }
 
     /**

@@ -14,7 +14,8 @@ import org.viewgain.spec.Params;
  * (Hsieh, Chang, Lin, Keerthi &amp; Sundararajan 2008, ICML, Algorithm 1; the L1-loss dual solver of LIBLINEAR). As in
  * LIBLINEAR, the intercept is a weight on a constant input of 1 and is regularized with the others. The rows are
  * visited in a seeded random order each pass; the solver stops when the spread of the projected gradient falls
- * below {@code tolerance} (LIBLINEAR's criterion, default 0.1 as LIBLINEAR's) or after {@code iterations} passes.
+ * below {@code tolerance} (LIBLINEAR's criterion, default 0.1 as LIBLINEAR's) or after {@code iterations} passes;
+ * a fit that stopped at {@code iterations} says so ({@link Model#converged()}), as LIBLINEAR warns.
  *
  * <p>Why not a library: Smile's LASVM ({@code smile.classification.SVM} with a linear kernel) ranked the training
  * subjects themselves below chance on wide standardized inputs (35,778 edges; training AUC 0.29, measured
@@ -48,7 +49,7 @@ public final class LinearSvm implements ClassifierMethod {
     }
 
     /** A fitted machine: weights of the inputs and the intercept. */
-    record Machine(double[] w, double b, int passes) {
+    record Machine(double[] w, double b, int passes, boolean converged) {
         double decision(double[] row) {
             double s = b;
             for (int j = 0; j < w.length; j++) {
@@ -83,6 +84,7 @@ public final class LinearSvm implements ClassifierMethod {
         }
         SplittableRandom rnd = new SplittableRandom(seed);
         int pass = 0;
+        boolean converged = false;
         while (pass < iterations) {
             pass++;
             for (int i = n - 1; i > 0; i--) {
@@ -123,10 +125,11 @@ public final class LinearSvm implements ClassifierMethod {
                 }
             }
             if (maxPg - minPg <= tolerance) {
+                converged = true;
                 break;
             }
         }
-        return new Machine(w, b, pass);
+        return new Machine(w, b, pass, converged);
     }
 
     @Override
@@ -162,9 +165,11 @@ public final class LinearSvm implements ClassifierMethod {
             return new Predictions(labels, scores);
         };
         double[][] w = new double[machines][];
+        boolean converged = true;
         for (int m = 0; m < machines; m++) {
             w[m] = fitted[m].w();
+            converged &= fitted[m].converged();
         }
-        return new Explained(model, Explained.absWeights(w, x.x()), Explained.ABS_WEIGHT);
+        return new Explained(model, Explained.absWeights(w, x.x()), Explained.ABS_WEIGHT, converged);
     }
 }

@@ -153,6 +153,27 @@ final class RunCommand implements Callable<Integer> {
                 Instant.now().toString());
     }
 
+    /**
+     * A warning line when some model fits stopped at their solver's iteration limit before converging (counted per
+     * classifier over all outer folds, inner and final fits); empty when none did.
+     */
+    static String convergenceWarning(RunResults results) {
+        java.util.Map<String, Integer> byClassifier = new java.util.TreeMap<>();
+        for (RunResults.Choice c : results.choices()) {
+            if (c.unconverged() > 0) {
+                byClassifier.merge(c.classifier(), c.unconverged(), Integer::sum);
+            }
+        }
+        if (byClassifier.isEmpty()) {
+            return "";
+        }
+        List<String> parts = new java.util.ArrayList<>();
+        byClassifier.forEach((name, n) -> parts.add(name + ": " + n + (n == 1 ? " fit" : " fits")));
+        return "[viewgain] warning: some model fits stopped at their iteration limit before converging ("
+                + String.join(", ", parts) + "); hyperparameters.csv (unconverged_fits) says in which folds. "
+                + "Their predictions are kept; raise the classifier's iterations or lower C, and rerun.\n";
+    }
+
     /** Writes the tables, run.json (complete) and the report of finished results; prints the summary. */
     static int finish(CommandLine cl, Common common, Experiment ex, RunFolder folder, Provenance prov,
                       RunResults results, Instant start) throws IOException {
@@ -163,6 +184,8 @@ final class RunCommand implements Callable<Integer> {
             err.println("[viewgain] all units done; computing the tables, the separation test and the report");
             err.flush();
         }
+        err.print(convergenceWarning(results));
+        err.flush();
         List<Evaluation.MetricRow> metrics = Evaluation.metrics(results);
         Instant end = Instant.now();
         prov.put("finished_at", end.toString())

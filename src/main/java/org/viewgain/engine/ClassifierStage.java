@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.Map;
+import org.viewgain.classify.ClassifierMethod;
 import org.viewgain.classify.Predictions;
 import org.viewgain.cohort.Extractors;
 import org.viewgain.cohort.Rows;
@@ -76,8 +77,9 @@ final class ClassifierStage {
         List<Point> points = points(cl);
         Point chosen = points.get(0);
         double innerScore = Double.NaN;
+        int[] unconverged = {0};
         if (points.size() > 1) {
-            double[] score = innerScores(p, cl, points, base, train, trainRows, yTrain, innerOf);
+            double[] score = innerScores(p, cl, points, base, train, trainRows, yTrain, innerOf, unconverged);
             double best = Double.NEGATIVE_INFINITY;
             for (int g = 0; g < points.size(); g++) {
                 if (score[g] > best) {
@@ -105,6 +107,9 @@ final class ClassifierStage {
         FitChain.Fitted model = new FitChain.Fitted(steps,
                 cl.method().fit(ctx, in, yTrain, ex.spec().cohort().groups().size(), chosen.params()),
                 in.featureNames());
+        if (!model.model().converged()) {
+            unconverged[0]++;
+        }
         Predictions pr = model.predict(rows(p.featureSet(), test, imputed));
         List<RunResults.Prediction> out = new ArrayList<>(test.length);
         int positive = ex.spec().cohort().groups().size() == 2 ? ex.spec().cohort().positiveIndex() : -1;
@@ -120,12 +125,16 @@ final class ClassifierStage {
         Importance.Fold used = permutation == 0 ? new Importance.Fold(p, repeat, fold, sel != null,
                 model.inputNames(), model.model().importance(), model.model().importanceKind()) : null;
         return new Output(out, new RunResults.Choice(repeat, fold, "classifier", p.imputer(),
-                p.featureSet().label(), p.classifier(), chosen.describe(ex), innerScore, points.size()), used);
+                p.featureSet().label(), p.classifier(), chosen.describe(ex), innerScore, points.size(), unconverged[0]),
+                used);
     }
 
-    /** The tune-by score of every grid point by inner cross-validation ({@code -infinity} where undefined). */
+    /**
+     * The tune-by score of every grid point by inner cross-validation ({@code -infinity} where undefined); adds the
+     * number of fits that did not converge to {@code unconverged[0]}.
+     */
     private double[] innerScores(Pipeline p, Resolved.Classifier cl, List<Point> points, FitContext base,
-                                 int[] train, Rows trainRows, int[] yTrain, int[] innerOf) {
+                                 int[] train, Rows trainRows, int[] yTrain, int[] innerOf, int[] unconverged) {
         int k = ex.spec().validation().innerFolds();
         int classes = ex.spec().cohort().groups().size();
         int n = train.length;
@@ -168,7 +177,11 @@ final class ClassifierStage {
                 }
                 FitContext ctx = base.at(j, FitContext.Role.TUNE, Seeds.derive(seed, point.seedParts(ex, "classify",
                         base.permutation(), base.repeat(), base.outerFold(), j, p.label())));
-                Predictions pr = cl.method().fit(ctx, fitIn, yFit, classes, point.params()).predict(valIn);
+                ClassifierMethod.Model trained = cl.method().fit(ctx, fitIn, yFit, classes, point.params());
+                if (!trained.converged()) {
+                    unconverged[0]++;
+                }
+                Predictions pr = trained.predict(valIn);
                 for (int t = 0; t < vp.length; t++) {
                     pred[g][vp[t]] = pr.labels()[t];
                     scores[g][vp[t]] = pr.hasScores() ? pr.scores()[t] : null;

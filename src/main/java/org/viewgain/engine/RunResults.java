@@ -48,9 +48,11 @@ public record RunResults(Experiment experiment, FoldPlan plan, List<Prediction> 
      * @param stage      {@code imputer} or {@code classifier}
      * @param innerScore the inner cross-validated score of the chosen point (MAE for imputers, the tune-by metric for
      *                   classifiers; NaN when there was nothing to choose)
+     * @param unconverged how many of the unit's model fits (inner and final) stopped at their solver's iteration
+     *                    limit before its stopping rule held (see {@code ClassifierMethod.Model#converged()})
      */
     public record Choice(int repeat, int fold, String stage, String imputer, String featureSet, String classifier,
-                         String params, double innerScore, int gridSize) {
+                         String params, double innerScore, int gridSize, int unconverged) {
     }
 
     /**

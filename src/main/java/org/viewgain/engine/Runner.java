@@ -352,7 +352,7 @@ public final class Runner {
         RunResults.EdgeErrors edges = fi.edgeErrors() == null ? null
                 : new RunResults.EdgeErrors(imp.name(), rf[0], rf[1], quality.size(), fi.edgeErrors());
         return new UnitCodec.ImputerSummary(new RunResults.Choice(rf[0], rf[1], "imputer", imp.name(), "", "",
-                fi.chosen().toString(), fi.innerMae(), imp.grid().size()), quality, edges);
+                fi.chosen().toString(), fi.innerMae(), imp.grid().size(), 0), quality, edges);
     }
 
     private RunResults collect(State state) {

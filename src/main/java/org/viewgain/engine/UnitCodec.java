@@ -149,13 +149,14 @@ final class UnitCodec {
     private static ArrayNode choice(RunResults.Choice c) {
         ArrayNode a = JSON.createArrayNode();
         a.add(c.repeat()).add(c.fold()).add(c.stage()).add(c.imputer()).add(c.featureSet()).add(c.classifier())
-                .add(c.params()).add(d(c.innerScore())).add(c.gridSize());
+                .add(c.params()).add(d(c.innerScore())).add(c.gridSize()).add(c.unconverged());
         return a;
     }
 
     private static RunResults.Choice choice(JsonNode a) {
         return new RunResults.Choice(a.get(0).asInt(), a.get(1).asInt(), text(a.get(2)), text(a.get(3)),
-                text(a.get(4)), text(a.get(5)), text(a.get(6)), d(a.get(7)), a.get(8).asInt());
+                text(a.get(4)), text(a.get(5)), text(a.get(6)), d(a.get(7)), a.get(8).asInt(),
+                a.size() > 9 ? a.get(9).asInt() : 0); // journals written before the count had nine fields
     }
 
     private static String text(JsonNode n) {

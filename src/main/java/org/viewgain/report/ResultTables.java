@@ -64,12 +64,13 @@ public final class ResultTables {
 
     public static CsvTable hyperparameters(RunResults res) {
         CsvTable t = new CsvTable("repeat", "fold", "stage", "imputer", "feature_set", "classifier", "chosen",
-                "inner_score", "tuned_by", "grid_size");
+                "inner_score", "tuned_by", "grid_size", "unconverged_fits");
         String tuneBy = res.experiment().spec().validation().tuneBy();
         for (RunResults.Choice c : res.choices()) {
             t.row().integer(c.repeat() + 1).integer(c.fold() + 1).text(c.stage()).text(c.imputer())
                     .text(c.featureSet()).text(c.classifier()).text(c.params()).number(c.innerScore())
-                    .text(c.stage().equals("imputer") ? "mae" : tuneBy).integer(c.gridSize());
+                    .text(c.stage().equals("imputer") ? "mae" : tuneBy).integer(c.gridSize())
+                    .integer(c.unconverged());
         }
         return t;
     }

@@ -53,6 +53,7 @@ final class Style {
             ul.checks li.warn { color: var(--warn); background: var(--warnbg); padding: .15rem .4rem; margin: .2rem 0;
                                 list-style: square; }
             ul.cautions li { margin: .4rem 0; }
+            p.warn { color: var(--warn); background: var(--warnbg); padding: .3rem .5rem; }
             .grid { display: flex; flex-wrap: wrap; gap: 1rem; }
             figure { margin: .3rem 0 .8rem; max-width: 100%; }
             figure img { max-width: 100%; height: auto; border: 1px solid var(--line); }

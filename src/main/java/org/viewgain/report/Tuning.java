@@ -38,6 +38,7 @@ final class Tuning {
         });
         StringBuilder b = new StringBuilder("<p>Each grid was searched by inner cross-validation inside every outer "
                 + "training fold; the grids themselves are in the spec below.</p>\n");
+        b.append(unconverged(d));
         b.append(Html.table("tuning", List.of("stage", "for", "grid points", "chosen by", "chosen (outer folds)"),
                 rows));
         List<List<String>> all = new ArrayList<>();
@@ -52,5 +53,26 @@ final class Tuning {
                         all))
                 .append("</details>\n");
         return b.toString();
+    }
+
+    /** A caution naming the pipelines some of whose fits stopped at their iteration limit; empty when none. */
+    static String unconverged(ReportData d) {
+        Map<String, Integer> counts = new LinkedHashMap<>();
+        for (CsvRows.Row r : d.hyperparameters.rows()) {
+            int n = r.i("unconverged_fits", 0);
+            if (n > 0) {
+                counts.merge(Names.pipeline(r.s("imputer"), r.s("feature_set"), r.s("classifier")), n,
+                        Integer::sum);
+            }
+        }
+        if (counts.isEmpty()) {
+            return "";
+        }
+        List<String> parts = new ArrayList<>();
+        counts.forEach((k, n) -> parts.add(Html.esc(k) + " (" + n + ")"));
+        return "<p class=\"warn\">Some model fits stopped at their solver's iteration limit before converging: "
+                + String.join(", ", parts) + ". Their predictions count in every table, but they are not the "
+                + "optimum the method defines; a rerun with more iterations (or a smaller C) may change them. "
+                + "hyperparameters.csv, column unconverged_fits, says in which folds.</p>\n";
     }
 }

@@ -104,6 +104,28 @@ class LinearSvmTest {
     }
 
     @Test
+    void givenTooFewPasses_whenSolved_thenTheFitSaysItDidNotConverge() {
+        // WDBC at C = 1 needs many passes to reach tolerance 1e-6 (measured: hundreds); one pass cannot
+        ReferenceTable cancer = ReferenceTable.load("breast-cancer-wisconsin.csv").standardized();
+        int[] signs = new int[cancer.y().length];
+        for (int i = 0; i < signs.length; i++) {
+            signs[i] = cancer.y()[i] == 1 ? 1 : -1;
+        }
+        LinearSvm.Machine cut = LinearSvm.solve(cancer.rows().x(), signs, 1.0, 1e-6, 1, 11);
+        assertEquals(1, cut.passes());
+        assertTrue(!cut.converged());
+        LinearSvm.Machine full = LinearSvm.solve(cancer.rows().x(), signs, 1.0, 1e-6, 100_000, 11);
+        assertTrue(full.converged() && full.passes() > 1 && full.passes() < 100_000, full.passes() + " passes");
+        // the model a pipeline sees reports the same
+        org.viewgain.folds.FitContext ctx = new org.viewgain.folds.FitContext(0, 0, 0, org.viewgain.folds.FitContext.WHOLE,
+                org.viewgain.folds.FitContext.Role.FINAL, 3L);
+        LinearSvm svm = new LinearSvm();
+        assertTrue(!svm.fit(ctx, cancer.rows(), cancer.y(), 2, svm.resolve(java.util.Map.of("C", 1.0,
+                "tolerance", 1e-6, "iterations", 1))).converged());
+        assertTrue(svm.fit(ctx, cancer.rows(), cancer.y(), 2, svm.resolve(java.util.Map.of("C", 1.0))).converged());
+    }
+
+    @Test
     void givenWideRandomData_whenSolved_thenLiblinearsWeights() {
         SplittableRandom rnd = new SplittableRandom(3);
         int n = 60;
