@@ -42,6 +42,16 @@ public interface ClassifierMethod {
      */
     Model fit(FitContext ctx, Rows x, int[] y, int classes, Params params);
 
+    /**
+     * Like {@link #fit}, for rows the caller will never read again (the final fit of a unit, on rows built for it).
+     * A method that copies the rows into its own format may release each row as it copies it, by setting
+     * {@code x.x()[i]} to null, so that the two copies do not live side by side for the whole fit. The default
+     * simply calls {@link #fit}.
+     */
+    default Model fitOwned(FitContext ctx, Rows x, int[] y, int classes, Params params) {
+        return fit(ctx, x, y, classes, params);
+    }
+
     /** A trained model. */
     interface Model {
         Predictions predict(Rows x);

@@ -202,12 +202,22 @@ public final class WekaClassifier implements ClassifierMethod {
 
     @Override
     public Model fit(FitContext ctx, Rows x, int[] y, int classes, Params params) {
+        return fit(ctx, x, y, classes, params, false);
+    }
+
+    /** Weka keeps its own copy of the rows (with the class appended): owned rows are released as they are copied. */
+    @Override
+    public Model fitOwned(FitContext ctx, Rows x, int[] y, int classes, Params params) {
+        return fit(ctx, x, y, classes, params, true);
+    }
+
+    private Model fit(FitContext ctx, Rows x, int[] y, int classes, Params params, boolean release) {
         TrainingLabels.check(method(), x, y, classes);
         Classifier c = configured(params, false);
         if (c instanceof Randomizable r) {
             r.setSeed(Seeds.toInt(ctx.seed()));
         }
-        Instances train = WekaData.instances(x, y, classes);
+        Instances train = WekaData.instances(x, y, classes, release);
         try {
             c.buildClassifier(train);
         } catch (Exception e) {

@@ -61,6 +61,14 @@ final class WekaData {
     }
 
     static Instances instances(Rows x, int[] y, int classes) {
+        return instances(x, y, classes, false);
+    }
+
+    /**
+     * The rows as Instances; with {@code release}, each row of {@code x} is set to null once copied (the caller
+     * hands them over), so at most one row exists twice.
+     */
+    static Instances instances(Rows x, int[] y, int classes, boolean release) {
         ArrayList<Attribute> attributes = new ArrayList<>();
         for (int j = 0; j < x.p(); j++) {
             attributes.add(new Attribute("f" + j));
@@ -76,6 +84,9 @@ final class WekaData {
             double[] v = java.util.Arrays.copyOf(x.x()[i], x.p() + 1);
             v[x.p()] = y[i];
             data.add(new Row(1.0, v));
+            if (release) {
+                x.x()[i] = null;
+            }
         }
         return data;
     }

@@ -104,9 +104,11 @@ final class ClassifierStage {
         }
         FitContext ctx = base.at(FitContext.WHOLE, FitContext.Role.FINAL,
                 Seeds.derive(seed, chosen.seedParts(ex, "classify", permutation, repeat, fold, "final", p.label())));
+        // the unit built these rows for this fit alone: the method may release them as it copies them
+        List<String> inputNames = in.featureNames();
         FitChain.Fitted model = new FitChain.Fitted(steps,
-                cl.method().fit(ctx, in, yTrain, ex.spec().cohort().groups().size(), chosen.params()),
-                in.featureNames());
+                cl.method().fitOwned(ctx, in, yTrain, ex.spec().cohort().groups().size(), chosen.params()),
+                inputNames);
         if (!model.model().converged()) {
             unconverged[0]++;
         }

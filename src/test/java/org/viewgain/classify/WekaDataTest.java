@@ -64,4 +64,44 @@ class WekaDataTest {
         }
         assertEquals("0.5,1.25,-3,0", data.instance(0).toString());
     }
+
+    @Test
+    void givenOwnedRows_whenAForestIsFitted_thenTheRowsAreReleasedAndTheForestIsTheSame() throws Exception {
+        java.util.SplittableRandom rnd = new java.util.SplittableRandom(2);
+        int n = 40;
+        double[][] x = new double[n][6];
+        int[] y = new int[n];
+        java.util.List<String> ids = new java.util.ArrayList<>();
+        for (int i = 0; i < n; i++) {
+            y[i] = i % 2;
+            ids.add("s" + i);
+            for (int j = 0; j < 6; j++) {
+                x[i][j] = rnd.nextGaussian() + (j == 0 ? y[i] : 0);
+            }
+        }
+        java.util.List<String> names = java.util.List.of("a", "b", "c", "d", "e", "f");
+        WekaClassifier forest = new WekaClassifier("weka.classifiers.trees.RandomForest", "-I 20");
+        org.viewgain.spec.Params params = forest.resolve(java.util.Map.of());
+        org.viewgain.folds.FitContext ctx = new org.viewgain.folds.FitContext(0, 0, 0,
+                org.viewgain.folds.FitContext.WHOLE, org.viewgain.folds.FitContext.Role.FINAL, 7L);
+        double[][] copy = new double[n][];
+        for (int i = 0; i < n; i++) {
+            copy[i] = x[i].clone();
+        }
+        Rows kept = new Rows(ids, x, names);
+        Rows owned = new Rows(ids, copy, names);
+        ClassifierMethod.Model a = forest.fit(ctx, kept, y, 2, params);
+        ClassifierMethod.Model b = forest.fitOwned(ctx, owned, y, 2, params);
+        for (double[] r : owned.x()) {
+            assertEquals(null, r);
+        }
+        for (double[] r : kept.x()) {
+            assertEquals(6, r.length); // fit() leaves the caller's rows alone
+        }
+        Predictions pa = a.predict(kept);
+        Predictions pb = b.predict(kept);
+        for (int i = 0; i < n; i++) {
+            org.junit.jupiter.api.Assertions.assertArrayEquals(pa.scores()[i], pb.scores()[i], 0.0);
+        }
+    }
 }
