@@ -38,6 +38,10 @@ public final class Setup {
         Preprocessing prep = preprocessing(spec, data, methods, problems);
         problems.throwIfAny();
         double[][] base = data.subjects().stream().map(s -> data.source().base(s.id())).toArray(double[][]::new);
+        if (spec.source().layout() == Specs.Layout.TABLE) {
+            // a table's columns may be different measures in different units: compare subjects on a common scale
+            Duplicates.standardizeColumns(base);
+        }
         List<Duplicates.Pair> duplicates = Duplicates.find(base, spec.cohort().duplicateThreshold());
         Experiment ex = new Experiment(spec, data, plan, imputers, classifiers, pipelines,
                 methods.scaler(spec.features().scale()), prep, duplicates);

@@ -51,4 +51,33 @@ class DuplicateScanCliTest {
         assertEquals(1 + 2 * 7, sites.size());
         assertEquals(1 + 4, Files.readAllLines(run.resolve("confusion.csv")).size());
     }
+
+    @Test
+    void givenATableOfMixedUnits_whenChecked_thenOnlyTheRealCopyIsListed() throws IOException {
+        // breast-cancer-wisconsin's ten mean_* columns range from ~0.05 (smoothness) to ~650 (area): on raw values
+        // 95,853 of 161,596 pairs correlated above 0.999 (measured 2026-12-02), all of them different patients
+        TestCohorts.breastCancer(dir, 0.3, 5);
+        Path source = dir.resolve("source.csv");
+        List<String> lines = Files.readAllLines(source);
+        String idOf40 = lines.get(40).substring(0, lines.get(40).indexOf(','));
+        String idOf7 = lines.get(7).substring(0, lines.get(7).indexOf(','));
+        lines.set(40, idOf40 + lines.get(7).substring(lines.get(7).indexOf(',')));
+        Files.write(source, lines);
+        Path spec = dir.resolve("spec.yaml");
+        Files.writeString(spec, """
+                experiment: bcw
+                seed: 11
+                cohort: { subjects: subjects.csv, id: subject, group: diagnosis, groups: [benign, malignant], positive: malignant }
+                views:
+                  source: { table: source.csv }
+                feature-sets: [source]
+                classifiers: [ { name: lr, method: logistic } ]
+                validation: { outer: { folds: 4 }, inner: { folds: 2 } }
+                """);
+        CliTest.Outcome c = CliTest.run("check", spec.toString());
+        assertEquals(0, c.code(), c.err());
+        assertTrue(c.out().contains("possible duplicate scans: 1 pair(s)"), c.out());
+        assertTrue(c.out().contains(idOf7 + " ~ " + idOf40 + " (r = 1.000000)")
+                || c.out().contains(idOf40 + " ~ " + idOf7 + " (r = 1.000000)"), c.out());
+    }
 }
