@@ -5,8 +5,10 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.time.Duration;
 import java.time.Instant;
+import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
+import java.util.TreeMap;
 import java.util.concurrent.Callable;
 import org.viewgain.cohort.Subject;
 import org.viewgain.engine.ComparisonPairs;
@@ -158,7 +160,7 @@ final class RunCommand implements Callable<Integer> {
      * classifier over all outer folds, inner and final fits); empty when none did.
      */
     static String convergenceWarning(RunResults results) {
-        java.util.Map<String, Integer> byClassifier = new java.util.TreeMap<>();
+        Map<String, Integer> byClassifier = new TreeMap<>();
         for (RunResults.Choice c : results.choices()) {
             if (c.unconverged() > 0) {
                 byClassifier.merge(c.classifier(), c.unconverged(), Integer::sum);
@@ -167,7 +169,7 @@ final class RunCommand implements Callable<Integer> {
         if (byClassifier.isEmpty()) {
             return "";
         }
-        List<String> parts = new java.util.ArrayList<>();
+        List<String> parts = new ArrayList<>();
         byClassifier.forEach((name, n) -> parts.add(name + ": " + n + (n == 1 ? " fit" : " fits")));
         return "[viewgain] warning: some model fits stopped at their iteration limit before converging ("
                 + String.join(", ", parts) + "); hyperparameters.csv (unconverged_fits) says in which folds. "

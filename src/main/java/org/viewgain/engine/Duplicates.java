@@ -22,35 +22,6 @@ public final class Duplicates {
     private Duplicates() {
     }
 
-    /**
-     * Centres every column on its mean over the rows and divides it by its standard deviation (a constant column
-     * becomes 0), in place. Used before the scan of a table view, whose columns may be measured in different units:
-     * on raw values the largest-unit column dominates every correlation (breast-cancer-wisconsin's ten mean_* columns:
-     * 95,853 of 161,596 pairs above 0.999, all of them distinct patients). Identical rows stay identical.
-     */
-    static void standardizeColumns(double[][] rows) {
-        if (rows.length == 0) {
-            return;
-        }
-        int p = rows[0].length;
-        int n = rows.length;
-        for (int j = 0; j < p; j++) {
-            double mean = 0;
-            for (double[] r : rows) {
-                mean += r[j];
-            }
-            mean /= n;
-            double ss = 0;
-            for (double[] r : rows) {
-                ss += (r[j] - mean) * (r[j] - mean);
-            }
-            double sd = Math.sqrt(ss / Math.max(1, n - 1));
-            for (double[] r : rows) {
-                r[j] = sd > 0 ? (r[j] - mean) / sd : 0;
-            }
-        }
-    }
-
     /** Two subjects (positions, {@code a < b}) and the correlation of their vectors. */
     public record Pair(int a, int b, double correlation) {
     }

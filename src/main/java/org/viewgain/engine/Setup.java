@@ -3,8 +3,11 @@ package org.viewgain.engine;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
+import org.viewgain.cohort.Rows;
 import org.viewgain.cohort.Subject;
+import org.viewgain.folds.FitContext;
 import org.viewgain.folds.FoldPlan;
+import org.viewgain.prep.Standardize;
 import org.viewgain.spec.BadInputException;
 import org.viewgain.spec.ExperimentSpec;
 import org.viewgain.spec.FeatureSet;
@@ -38,9 +41,13 @@ public final class Setup {
         Preprocessing prep = preprocessing(spec, data, methods, problems);
         problems.throwIfAny();
         double[][] base = data.subjects().stream().map(s -> data.source().base(s.id())).toArray(double[][]::new);
-        if (spec.source().layout() == Specs.Layout.TABLE) {
-            // a table's columns may be different measures in different units: compare subjects on a common scale
-            Duplicates.standardizeColumns(base);
+        if (!data.source().isGraph() && base.length > 0) {
+            // A table's columns may be different measures in different units; on raw values the largest decides
+            // every correlation (breast-cancer-wisconsin's ten mean_* columns: 95,853 of 161,596 pairs above 0.999).
+            // Compare subjects on the pipeline's standardized scale, over everyone: a QC scan, nothing is trained.
+            Rows rows = new Rows(data.subjects().stream().map(Subject::id).toList(), base, data.source().baseNames());
+            new Standardize().fit(new FitContext(0, 0, 0, FitContext.WHOLE, FitContext.Role.FINAL, 0L), rows,
+                    data.y()).applyInPlace(rows);
         }
         List<Duplicates.Pair> duplicates = Duplicates.find(base, spec.cohort().duplicateThreshold());
         Experiment ex = new Experiment(spec, data, plan, imputers, classifiers, pipelines,

@@ -25,14 +25,7 @@ class BreastCancerEndToEndTest {
     @Test
     void givenBreastCancerViews_whenRunThroughCli_thenPlausibleAccuracyAndCompleteOutputs() throws IOException {
         TestCohorts.breastCancer(dir, 0.3, 2026);
-        Path spec = dir.resolve("spec.yaml");
-        Files.writeString(spec, """
-                experiment: bcw
-                seed: 11
-                cohort: { subjects: subjects.csv, id: subject, group: diagnosis, groups: [benign, malignant], positive: malignant }
-                views:
-                  source: { table: source.csv }
-                  target: { table: target.csv, missing: allowed }
+        Path spec = TestCohorts.breastCancerSpec(dir, """
                 imputers:
                   - { name: ridge, method: ridge, grid: { alpha: [0.1, 10] } }
                 feature-sets: [source, target, source+imputed]

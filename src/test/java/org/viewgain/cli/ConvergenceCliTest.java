@@ -19,17 +19,8 @@ class ConvergenceCliTest {
     @TempDir
     Path dir;
 
-    static final String HEAD = """
-            experiment: synthetic
-            seed: 11
-            cohort: { subjects: subjects.csv, id: subject, group: diagnosis, groups: [benign, malignant], positive: malignant }
-            views:
-              source: { table: source.csv }
-              target: { table: target.csv, missing: allowed }
-            features: { scale: standardize }
-            """;
-
     static final String TAIL = """
+            features: { scale: standardize }
             feature-sets: [source]
             validation: { outer: { folds: 3 }, inner: { folds: 2 } }
             """;
@@ -41,20 +32,16 @@ class ConvergenceCliTest {
         return lines.subList(1, lines.size()).stream().map(l -> l.split(",")[c]).toList();
     }
 
-    Path spec(String body) throws Exception {
-        return Files.writeString(dir.resolve("spec.yaml"), HEAD + body);
-    }
-
     @Test
     void givenOnePassSvm_whenRun_thenEveryFitIsCountedAndWarnedAbout() throws Exception {
         TestCohorts.breastCancer(dir, 0.3, 5);
-        Path spec = spec("classifiers: [ { name: svm, method: svm-linear, grid: { C: [0.1, 1] }, "
+        Path spec = TestCohorts.breastCancerSpec(dir, "classifiers: [ { name: svm, method: svm-linear, grid: { C: [0.1, 1] }, "
                 + "fixed: { iterations: 1, tolerance: 0.000001 } } ]\n" + TAIL);
         CliTest.Outcome o = CliTest.run("run", spec.toString(), "--out", dir.resolve("cut").toString(), "--quiet");
         assertEquals(0, o.code(), o.err());
         assertTrue(o.err().contains("warning: some model fits stopped at their iteration limit before converging "
                 + "(svm: 15 fits)"), o.err());
-        Path run = RunTables.only(dir.resolve("cut"), "synthetic");
+        Path run = RunTables.only(dir.resolve("cut"), "bcw");
         // per outer fold: 2 grid points x 2 inner folds + the final fit = 5, none of which can converge in one pass
         assertEquals(List.of("5", "5", "5"), column(run, "unconverged_fits"));
         String report = Files.readString(run.resolve("report.html"));
@@ -65,12 +52,12 @@ class ConvergenceCliTest {
     @Test
     void givenDefaultSvm_whenRun_thenNothingIsCountedOrSaid() throws Exception {
         TestCohorts.breastCancer(dir, 0.3, 5);
-        Path spec = spec("classifiers: [ { name: svm, method: svm-linear, grid: { C: [0.1, 1] } } ]\n"
+        Path spec = TestCohorts.breastCancerSpec(dir, "classifiers: [ { name: svm, method: svm-linear, grid: { C: [0.1, 1] } } ]\n"
                 + TAIL);
         CliTest.Outcome o = CliTest.run("run", spec.toString(), "--out", dir.resolve("ok").toString(), "--quiet");
         assertEquals(0, o.code(), o.err());
         assertFalse(o.err().contains("iteration limit"), o.err());
-        Path run = RunTables.only(dir.resolve("ok"), "synthetic");
+        Path run = RunTables.only(dir.resolve("ok"), "bcw");
         assertEquals(List.of("0", "0", "0"), column(run, "unconverged_fits"));
         assertFalse(Files.readString(run.resolve("report.html")).contains("iteration limit"));
     }

@@ -63,13 +63,7 @@ class DuplicateScanCliTest {
         String idOf7 = lines.get(7).substring(0, lines.get(7).indexOf(','));
         lines.set(40, idOf40 + lines.get(7).substring(lines.get(7).indexOf(',')));
         Files.write(source, lines);
-        Path spec = dir.resolve("spec.yaml");
-        Files.writeString(spec, """
-                experiment: bcw
-                seed: 11
-                cohort: { subjects: subjects.csv, id: subject, group: diagnosis, groups: [benign, malignant], positive: malignant }
-                views:
-                  source: { table: source.csv }
+        Path spec = TestCohorts.breastCancerSpec(dir, """
                 feature-sets: [source]
                 classifiers: [ { name: lr, method: logistic } ]
                 validation: { outer: { folds: 4 }, inner: { folds: 2 } }

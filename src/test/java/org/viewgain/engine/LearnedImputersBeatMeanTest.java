@@ -80,15 +80,6 @@ class LearnedImputersBeatMeanTest {
     @Test
     void givenBreastCancerViews_whenEveryImputerRuns_thenEachLearnedImputerHasLowerMaeThanMean() throws IOException {
         TestCohorts.breastCancer(dir, 0.3, 2026);
-        Path spec = dir.resolve("spec.yaml");
-        Files.writeString(spec, """
-                experiment: bcw
-                seed: 11
-                cohort: { subjects: subjects.csv, id: subject, group: diagnosis, groups: [benign, malignant], positive: malignant }
-                views:
-                  source: { table: source.csv }
-                  target: { table: target.csv, missing: allowed }
-                """ + IMPUTERS);
-        assertAllBeatMean(maeMean(spec));
+        assertAllBeatMean(maeMean(TestCohorts.breastCancerSpec(dir, IMPUTERS)));
     }
 }

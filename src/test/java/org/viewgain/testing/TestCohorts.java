@@ -100,6 +100,26 @@ public final class TestCohorts {
     }
 
     /**
+     * A spec (experiment {@code bcw}, seed 11) over the cohort {@link #breastCancer} wrote into {@code dir}: groups
+     * benign and malignant (positive), source and target table views (target may be missing), then {@code body}.
+     */
+    public static Path breastCancerSpec(Path dir, String body) {
+        String text = """
+                experiment: bcw
+                seed: 11
+                cohort: { subjects: subjects.csv, id: subject, group: diagnosis, groups: [benign, malignant], positive: malignant }
+                views:
+                  source: { table: source.csv }
+                  target: { table: target.csv, missing: allowed }
+                """ + body;
+        try {
+            return Files.writeString(dir.resolve("spec.yaml"), text);
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
+        }
+    }
+
+    /**
      * The breast-cancer-wisconsin data set (test resource, source in its README) as two tabular views of one subject:
      * source = the 10 {@code mean_*} columns, target = the 10 {@code worst_*} columns, with the target removed for a
      * seeded random {@code missing} fraction of subjects.
