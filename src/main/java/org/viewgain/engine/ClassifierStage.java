@@ -9,6 +9,7 @@ import org.viewgain.classify.Predictions;
 import org.viewgain.cohort.Extractors;
 import org.viewgain.cohort.Rows;
 import org.viewgain.folds.FitContext;
+import org.viewgain.folds.FoldPlan;
 import org.viewgain.folds.Seeds;
 import org.viewgain.prep.Transform;
 import org.viewgain.spec.FeatureSet;
@@ -31,7 +32,8 @@ final class ClassifierStage {
     /**
      * The result of one unit.
      *
-     * @param importance what the final model used (null for permuted labels)
+     * @param choice     the tuning choice (null when the fold had no test subjects and nothing was fitted)
+     * @param importance what the final model used (null for permuted labels, or when nothing was fitted)
      */
     record Output(List<RunResults.Prediction> predictions, RunResults.Choice choice, Importance.Fold importance) {
     }
@@ -65,11 +67,21 @@ final class ClassifierStage {
         return out;
     }
 
-    Output run(Pipeline p, int permutation, int repeat, int fold, int[] innerOf, ImputedFold imputed, int[] labels) {
+    /**
+     * Runs one pipeline in one outer fold of a plan (the run's, or a permutation's re-drawn one) with the given
+     * labels and classifier inner folds. An outer fold without test subjects in the pipeline's population (leave-one-
+     * out, a complete-case feature set, a left-out subject without a target) is skipped: no fit, no predictions, no
+     * choice.
+     */
+    Output run(Pipeline p, int permutation, FoldPlan plan, int repeat, int fold, int[] innerOf, ImputedFold imputed,
+               int[] labels) {
         Resolved.Classifier cl = ex.classifier(p.classifier());
-        int[] train = Arrays.stream(ex.plan().train(repeat, fold)).filter(i -> ex.inPopulation(p.featureSet(), i))
+        int[] test = Arrays.stream(plan.test(repeat, fold)).filter(i -> ex.inPopulation(p.featureSet(), i))
                 .toArray();
-        int[] test = Arrays.stream(ex.plan().test(repeat, fold)).filter(i -> ex.inPopulation(p.featureSet(), i))
+        if (test.length == 0) {
+            return new Output(List.of(), null, null);
+        }
+        int[] train = Arrays.stream(plan.train(repeat, fold)).filter(i -> ex.inPopulation(p.featureSet(), i))
                 .toArray();
         Rows trainRows = rows(p.featureSet(), train, imputed);
         int[] yTrain = pick(labels, train);

@@ -51,7 +51,7 @@ public final class Evaluation {
         return out;
     }
 
-    /** Metrics per pipeline, repeat and outer fold. */
+    /** Metrics per pipeline, repeat and outer fold; folds where the pipeline tested nobody have no rows. */
     public static List<FoldMetricRow> foldMetrics(RunResults res) {
         List<FoldMetricRow> out = new ArrayList<>();
         Experiment ex = res.experiment();
@@ -59,6 +59,9 @@ public final class Evaluation {
             for (int r = 0; r < res.plan().repeats(); r++) {
                 for (int f = 0; f < res.plan().folds(r); f++) {
                     List<RunResults.Prediction> ps = select(res, p, r, f);
+                    if (ps.isEmpty()) {
+                        continue; // no test subject of this pipeline's population in the fold (leave-one-out)
+                    }
                     Map<String, Double> m = compute(ex, ps);
                     for (String name : ClassificationMetrics.NAMES) {
                         out.add(new FoldMetricRow(p, r, f, name, m.get(name), ps.size()));

@@ -52,6 +52,18 @@ public record Experiment(ExperimentSpec spec, StudyData data, FoldPlan plan, Lis
         return classifiers.stream().filter(c -> c.name().equals(name)).findFirst().orElseThrow();
     }
 
+    /**
+     * The outer fold plan for the given labels: this run's plan for the real labels or when the scheme does not
+     * depend on labels (leave-one-out, leave-site-out), otherwise the plan drawn from these labels as the run's plan
+     * was drawn from the real ones (the permutation test, so that observed and permuted statistics are exchangeable).
+     */
+    public FoldPlan planFor(int[] labels) {
+        if (!Setup.planDependsOnLabels(spec) || java.util.Arrays.equals(labels, data.y())) {
+            return plan;
+        }
+        return Setup.plan(spec, data, labels);
+    }
+
     /** Positions of the subjects a feature set can use (all, or those with an observed target). */
     public boolean inPopulation(FeatureSet fs, int i) {
         return !fs.needsObservedTarget() || data.hasTarget(i);

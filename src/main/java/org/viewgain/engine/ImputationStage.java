@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.List;
 import org.viewgain.cohort.Rows;
 import org.viewgain.folds.FitContext;
+import org.viewgain.folds.FoldPlan;
 import org.viewgain.folds.Seeds;
 import org.viewgain.imputation.ImputationQuality;
 import org.viewgain.imputation.MeanImputer;
@@ -25,7 +26,8 @@ final class ImputationStage {
         this.ex = ex;
     }
 
-    ImputedFold run(Resolved.Imputer imp, int permutation, int repeat, int fold, int[] innerOf) {
+    /** Fits the imputer in one outer fold of a plan (the run's, or a permutation's re-drawn one). */
+    ImputedFold run(Resolved.Imputer imp, int permutation, FoldPlan plan, int repeat, int fold) {
         StudyData d = ex.data();
         boolean crossFit = ex.spec().imputedForTraining() == Specs.TrainingImputation.CROSS_FITTED;
         int k = ex.spec().validation().innerFolds();
@@ -37,8 +39,9 @@ final class ImputationStage {
         double innerMae = Double.NaN;
         if (ImputationTasks.runsCrossFits(ex, imp)) {
             List<ImputationTasks.Task> tasks = new ArrayList<>(k);
+            int[] foldOf = ImputationFolds.of(ex, plan, repeat, fold);
             for (int j = 0; j < k; j++) {
-                tasks.add(ImputationTasks.crossFit(ex, repeat, fold, innerOf, j));
+                tasks.add(ImputationTasks.crossFit(ex, plan, repeat, fold, foldOf, j));
             }
             double best = Double.POSITIVE_INFINITY;
             float[][] bestPreds = null;
@@ -77,12 +80,12 @@ final class ImputationStage {
             }
             innerMae = best;
             if (crossFit) {
-                for (int i : ex.plan().train(repeat, fold)) {
+                for (int i : plan.train(repeat, fold)) {
                     out[i] = bestPreds[i];
                 }
             }
         }
-        ImputationTasks.Task last = ImputationTasks.finalTask(ex, repeat, fold);
+        ImputationTasks.Task last = ImputationTasks.finalTask(ex, plan, repeat, fold);
         int[] withTarget = last.trainPositions();
         FitContext ctx = base.at(FitContext.WHOLE, FitContext.Role.FINAL,
                 Seeds.derive(ex.spec().seed(), "impute", repeat, fold, "final", imp.name(), chosen.toString()));
@@ -100,7 +103,7 @@ final class ImputationStage {
             }
         }
         List<ImputedFold.Quality> quality = new ArrayList<>();
-        double[] edgeErrors = quality(ctx, withTarget, ex.plan().test(repeat, fold), exact, quality);
+        double[] edgeErrors = quality(ctx, withTarget, plan.test(repeat, fold), exact, quality);
         return new ImputedFold(out, chosen, innerMae, quality, edgeErrors);
     }
 

@@ -3,6 +3,7 @@ package org.viewgain.engine;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import org.viewgain.folds.FoldPlan;
 import org.viewgain.imputation.ExternalImputer;
 import org.viewgain.spec.Specs;
 
@@ -10,8 +11,8 @@ import org.viewgain.spec.Specs;
  * Who an imputer trains on and whom it imputes in each fit of an outer fold. The {@code final} task trains on the
  * outer-training subjects with an observed target and imputes the outer-test subjects (with {@code
  * imputed-for-training: observed} also the outer-training subjects without a target); cross-fit task {@code j}
- * trains on the outer-training subjects with a target outside inner fold {@code j} and imputes every outer-training
- * subject in inner fold {@code j}. {@link ImputationStage} and {@code viewgain folds} both take their subject lists
+ * trains on the outer-training subjects with a target outside imputation fold {@code j} ({@link ImputationFolds},
+ * label-free) and imputes every outer-training subject in that fold. {@link ImputationStage} and {@code viewgain folds} both take their subject lists
  * from here, so an outside program is told exactly what the engine will ask for.
  */
 public final class ImputationTasks {
@@ -43,12 +44,17 @@ public final class ImputationTasks {
         }
     }
 
-    /** The final task of one outer fold. */
+    /** The final task of one outer fold of the run's plan. */
     public static Task finalTask(Experiment ex, int repeat, int fold) {
+        return finalTask(ex, ex.plan(), repeat, fold);
+    }
+
+    /** The final task of one outer fold of a plan. */
+    static Task finalTask(Experiment ex, FoldPlan plan, int repeat, int fold) {
         StudyData d = ex.data();
-        int[] train = ex.plan().train(repeat, fold);
+        int[] train = plan.train(repeat, fold);
         int[] withTarget = Arrays.stream(train).filter(d::hasTarget).toArray();
-        int[] impute = ex.plan().test(repeat, fold).clone();
+        int[] impute = plan.test(repeat, fold).clone();
         if (ex.spec().imputedForTraining() == Specs.TrainingImputation.OBSERVED) {
             int[] without = Arrays.stream(train).filter(i -> !d.hasTarget(i)).toArray();
             impute = concat(impute, without);
@@ -57,12 +63,12 @@ public final class ImputationTasks {
         return new Task(repeat, fold, FINAL, -1, list(withTarget), list(impute));
     }
 
-    /** Cross-fit task {@code j} (from 0) of one outer fold, with the inner folds of {@link InnerFolds#of}. */
-    static Task crossFit(Experiment ex, int repeat, int fold, int[] innerOf, int j) {
+    /** Cross-fit task {@code j} (from 0) of one outer fold of a plan, with the folds of {@link ImputationFolds#of}. */
+    static Task crossFit(Experiment ex, FoldPlan plan, int repeat, int fold, int[] foldOf, int j) {
         StudyData d = ex.data();
-        int[] train = ex.plan().train(repeat, fold);
-        int[] fitSet = Arrays.stream(train).filter(i -> d.hasTarget(i) && innerOf[i] != j).toArray();
-        int[] predSet = Arrays.stream(train).filter(i -> innerOf[i] == j).toArray();
+        int[] train = plan.train(repeat, fold);
+        int[] fitSet = Arrays.stream(train).filter(i -> d.hasTarget(i) && foldOf[i] != j).toArray();
+        int[] predSet = Arrays.stream(train).filter(i -> foldOf[i] == j).toArray();
         return new Task(repeat, fold, CROSS_FIT, j, list(fitSet), list(predSet));
     }
 
@@ -74,9 +80,9 @@ public final class ImputationTasks {
         List<Task> out = new ArrayList<>();
         out.add(finalTask(ex, repeat, fold));
         if (crossFitNeeded(ex)) {
-            int[] innerOf = InnerFolds.of(ex, repeat, fold);
+            int[] foldOf = ImputationFolds.of(ex, ex.plan(), repeat, fold);
             for (int j = 0; j < ex.spec().validation().innerFolds(); j++) {
-                Task t = crossFit(ex, repeat, fold, innerOf, j);
+                Task t = crossFit(ex, ex.plan(), repeat, fold, foldOf, j);
                 if (!t.impute().isEmpty()) {
                     out.add(t);
                 }

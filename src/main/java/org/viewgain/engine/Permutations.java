@@ -4,16 +4,30 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.concurrent.Callable;
+import java.util.concurrent.ConcurrentHashMap;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.FutureTask;
 import java.util.function.Function;
+import org.viewgain.folds.FoldPlan;
 import org.viewgain.spec.Specs;
 import org.viewgain.stats.PermutationP;
 import org.viewgain.stats.SequentialStop;
 
 /**
- * Label permutation test of whole nested pipelines: for each permutation the labels are shuffled (within sites when
- * given) and every label-dependent step (tuning, scaling, classifier) is re-run on the same fold plan; the imputations,
- * which never see labels, are reused from the observed run. Permutations are evaluated in batches but consumed in
- * order, so sequential stopping gives the same answer on any number of threads.
+ * Label permutation test of whole nested pipelines. For each permutation the labels are shuffled among the subjects
+ * the pipeline uses (within sites when given, see {@link PermutedLabels}) and the whole procedure is re-run as the run
+ * ran it: the outer fold plan is drawn from the permuted labels as the run's plan was drawn from the real ones
+ * (stratified k-fold; leave-one-out and leave-site-out plans do not depend on labels), the inner folds are stratified
+ * by the permuted labels, the imputers are fitted in the permuted plan's training sets, and every label-dependent
+ * step (tuning, preprocessing, classifier) is re-fitted. So the observed statistic and the permuted ones come from one
+ * procedure and are exchangeable under the null. Keeping the run's label-stratified folds for every permutation
+ * would not be: the permuted labels would fall unevenly into them, and cross-validation on unbalanced folds scores
+ * below chance at small n, which made the test liberal.
+ *
+ * <p>Imputations never see labels: within one permutation they are computed once per imputer and shared by every
+ * pipeline that uses them; they are reused from the observed run when the permuted plan equals it (leave-one-out,
+ * leave-site-out). Permutations are evaluated in batches but consumed in order, so sequential stopping gives the same
+ * answer on any number of threads.
  */
 final class Permutations {
     private final Experiment ex;
@@ -21,6 +35,8 @@ final class Permutations {
     private final Known known;
     private final Record record;
     private final Runnable ready;
+    /** Imputations of permutation k's plan per imputer (key k, imputer), for the pipelines of the current batch. */
+    private final ConcurrentHashMap<List<Integer>, FutureTask<ImputedFold[]>> imputations = new ConcurrentHashMap<>();
 
     /** A statistic already computed (journaled), or null. */
     interface Known {
@@ -98,6 +114,7 @@ final class Permutations {
                 });
             }
             List<Double> got = executor.apply(tasks);
+            release();
             for (int j = 0; j < jobs.size(); j++) {
                 int p = jobs.get(j)[0];
                 int k = jobs.get(j)[1];
@@ -139,21 +156,61 @@ final class Permutations {
         return false;
     }
 
-    /** The pipeline's metric (mean over repeats of the pooled out-of-fold value) under permutation k. */
+    /** The pipeline's metric (mean over repeats of the pooled out-of-fold value) under permutation k (from 1). */
     double statistic(Pipeline p, int k, String metric) {
-        int[] labels = PermutedLabels.of(ex, k);
+        int[] labels = PermutedLabels.of(ex, k, p.featureSet());
+        FoldPlan plan = ex.planFor(labels);
         ClassifierStage stage = new ClassifierStage(ex);
         int m = p.featureSet().needsImputer() ? state.imputerIndex(p.imputer()) : -1;
         double sum = 0;
-        for (int r = 0; r < ex.plan().repeats(); r++) {
+        for (int r = 0; r < plan.repeats(); r++) {
             List<RunResults.Prediction> ps = new ArrayList<>();
-            for (int f = 0; f < ex.plan().folds(r); f++) {
+            for (int f = 0; f < plan.folds(r); f++) {
                 int slot = state.slot(r, f);
-                ps.addAll(stage.run(p, k, r, f, state.innerOf(slot), m < 0 ? null : state.imputed(slot, m), labels)
+                ImputedFold imputed = m < 0 ? null : imputed(k, plan, m, slot);
+                ps.addAll(stage.run(p, k, plan, r, f, InnerFolds.of(ex, plan, labels, r, f), imputed, labels)
                         .predictions());
             }
             sum += Evaluation.compute(ex, ps).get(metric.replace('-', '_'));
         }
-        return sum / ex.plan().repeats();
+        return sum / plan.repeats();
+    }
+
+    /**
+     * The imputations of imputer {@code m} in one outer fold of permutation k's plan: the run's own when the plan is
+     * the run's, otherwise fitted once for the permutation (every pipeline with imputed features uses the whole
+     * cohort, so one plan per permutation serves them all) by the first pipeline that asks.
+     */
+    private ImputedFold imputed(int k, FoldPlan plan, int m, int slot) {
+        if (plan == ex.plan() && state.imputed(slot, m) != null) {
+            return state.imputed(slot, m);
+        }
+        FutureTask<ImputedFold[]> task = imputations.computeIfAbsent(List.of(k, m), key -> new FutureTask<>(() -> {
+            ImputationStage stage = new ImputationStage(ex);
+            ImputedFold[] out = new ImputedFold[state.slots()];
+            for (int r = 0; r < plan.repeats(); r++) {
+                for (int f = 0; f < plan.folds(r); f++) {
+                    out[state.slot(r, f)] = stage.run(ex.imputers().get(m), k, plan, r, f);
+                }
+            }
+            return out;
+        }));
+        task.run(); // returns at once when another thread runs it or has run it
+        try {
+            return task.get()[slot];
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            throw new IllegalStateException("interrupted", e);
+        } catch (ExecutionException e) {
+            if (e.getCause() instanceof RuntimeException re) {
+                throw re;
+            }
+            throw new IllegalStateException(e.getCause());
+        }
+    }
+
+    /** Drops the imputations of the permutations run so far (called after each batch). */
+    void release() {
+        imputations.clear();
     }
 }

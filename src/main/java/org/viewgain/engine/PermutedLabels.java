@@ -6,11 +6,15 @@ import java.util.SplittableRandom;
 import java.util.TreeMap;
 import org.viewgain.cohort.Subject;
 import org.viewgain.folds.Seeds;
+import org.viewgain.spec.FeatureSet;
 
 /**
- * Label permutations for the permutation test (Ojala &amp; Garriga 2010, test 1). With a site column, labels are
- * shuffled within sites (exchangeability blocks), so a site-group imbalance cannot make the null look better than
- * it is. Permutation k is the same for every pipeline (seeded by run seed and k).
+ * Label permutations for the permutation test (Ojala &amp; Garriga 2010, test 1). Labels are shuffled among the
+ * subjects a pipeline uses: everyone, or, for feature sets that need an observed target, only those who have one, so
+ * that a group-dependent missing target cannot change the class counts of the population from one permutation to
+ * the next. With a site column they are shuffled within sites (exchangeability blocks), so a site-group imbalance
+ * cannot make the null look better than it is. Subjects outside the population keep their real label. Permutation k
+ * is the same for every pipeline of one population (seeded by run seed, k and the population).
  */
 final class PermutedLabels {
     private PermutedLabels() {
@@ -21,14 +25,20 @@ final class PermutedLabels {
         return ex.spec().cohort().site() != null;
     }
 
-    static int[] of(Experiment ex, int k) {
+    /** The labels of permutation {@code k} (from 1) for the population of feature set {@code fs}. */
+    static int[] of(Experiment ex, int k, FeatureSet fs) {
         int[] y = ex.data().y().clone();
         TreeMap<String, List<Integer>> blocks = new TreeMap<>();
         for (int i = 0; i < y.length; i++) {
-            Subject s = ex.data().subjects().get(i);
-            blocks.computeIfAbsent(withinSites(ex) ? s.site() : "", b -> new ArrayList<>()).add(i);
+            if (ex.inPopulation(fs, i)) {
+                Subject s = ex.data().subjects().get(i);
+                blocks.computeIfAbsent(withinSites(ex) ? s.site() : "", b -> new ArrayList<>()).add(i);
+            }
         }
-        SplittableRandom rng = new SplittableRandom(Seeds.derive(ex.spec().seed(), "permutation", k));
+        long seed = fs.needsObservedTarget()
+                ? Seeds.derive(ex.spec().seed(), "permutation", k, "observed-target")
+                : Seeds.derive(ex.spec().seed(), "permutation", k);
+        SplittableRandom rng = new SplittableRandom(seed);
         for (List<Integer> members : blocks.values()) {
             int[] labels = members.stream().mapToInt(i -> ex.data().y()[i]).toArray();
             for (int i = labels.length - 1; i > 0; i--) {

@@ -5,6 +5,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
+import java.util.TreeMap;
 import java.util.TreeSet;
 import java.util.concurrent.Callable;
 import java.util.concurrent.ConcurrentHashMap;
@@ -17,8 +18,8 @@ import org.viewgain.folds.FoldPlan;
 
 /**
  * Runs an experiment as independent work units on a thread pool. Phase one fits every imputer in every outer fold
- * (label-free work, done once and shared by all pipelines and permutations); phase two trains and tests every
- * pipeline in every outer fold; phase three, when the spec asks for it, runs the label permutation test. Results are
+ * (label-free work, done once and shared by all pipelines); phase two trains and tests every pipeline in every outer
+ * fold; phase three, when the spec asks for it, runs the label permutation test (see {@link Permutations}). Results are
  * gathered in unit order, so they do not depend on the number of threads. With a {@link Journal} every finished
  * unit of phases two and three is journaled and units already there are skipped, so a killed run resumes where it
  * stopped; with a {@link Shard} only a share of the units runs (for a cluster job array).
@@ -54,6 +55,10 @@ public final class Runner {
                 }
             }
             throw new IllegalArgumentException("no fold " + repeat + "/" + fold);
+        }
+
+        int slots() {
+            return folds.size();
         }
 
         int[] innerOf(int slot) {
@@ -252,7 +257,7 @@ public final class Runner {
                 Pipeline p = ex.pipelines().get(Integer.parseInt(parts[2]));
                 int m = p.featureSet().needsImputer() ? state.imputerIndex(p.imputer()) : -1;
                 tasks.add(() -> {
-                    record(key, stage.run(p, 0, rf[0], rf[1], state.innerOf[rf[2]],
+                    record(key, stage.run(p, 0, plan, rf[0], rf[1], state.innerOf[rf[2]],
                             m < 0 ? null : state.imputed[rf[2]][m], ex.data().y()));
                     counter.done();
                     return null;
@@ -263,21 +268,35 @@ public final class Runner {
                     (p, k, v) -> record(UnitCodec.permutationKey(p, k), v), () -> impute(state,
                     allFolds(state), pool, null, counter, false));
             if (shard != null) {
-                List<Callable<Void>> perms = new ArrayList<>();
+                // permutation-major, a few permutations at a time: the pipelines of one permutation share its
+                // imputations, which are dropped after each batch
+                TreeMap<Integer, List<Callable<Void>>> byPermutation = new TreeMap<>();
                 String metric = ex.spec().significance().metric();
                 for (String key : mine) {
                     if (key.charAt(0) == 'p' && known(key) == null) {
                         String[] parts = key.split("/");
                         int pi = Integer.parseInt(parts[1]);
                         int k = Integer.parseInt(parts[2]);
-                        perms.add(() -> {
+                        byPermutation.computeIfAbsent(k, x -> new ArrayList<>()).add(() -> {
                             record(key, perm.statistic(ex.pipelines().get(pi), k + 1, metric));
                             counter.done();
                             return null;
                         });
                     }
                 }
-                invokeAll(pool, perms);
+                int per = Math.max(1, (int) Math.ceil(2.0 * threads / Math.max(1, ex.pipelines().size())));
+                List<Callable<Void>> batch = new ArrayList<>();
+                int inBatch = 0;
+                for (List<Callable<Void>> tasksOfK : byPermutation.values()) {
+                    batch.addAll(tasksOfK);
+                    if (++inBatch == per) {
+                        invokeAll(pool, batch);
+                        perm.release();
+                        batch.clear();
+                        inBatch = 0;
+                    }
+                }
+                invokeAll(pool, batch);
                 return null;
             }
             RunResults res = collect(state);
@@ -327,7 +346,7 @@ public final class Runner {
                 String key = UnitCodec.imputerKey(slot, m);
                 boolean owned = shard == null || shard.owns((long) slot * ex.imputers().size() + m);
                 tasks.add(() -> {
-                    ImputedFold fi = stage.run(ex.imputers().get(mm), 0, rf[0], rf[1], state.innerOf[slot]);
+                    ImputedFold fi = stage.run(ex.imputers().get(mm), 0, ex.plan(), rf[0], rf[1]);
                     state.imputed[slot][mm] = fi;
                     if (owned && known(key) == null) {
                         record(key, summary(rf, mm, fi));
@@ -379,7 +398,9 @@ public final class Runner {
             for (int[] rf : state.folds) {
                 ClassifierStage.Output o = (ClassifierStage.Output) known(UnitCodec.classifierKey(rf[2], pi));
                 predictions.addAll(o.predictions());
-                choices.add(o.choice());
+                if (o.choice() != null) {
+                    choices.add(o.choice());
+                }
                 if (o.importance() != null) {
                     importance.add(o.importance());
                 }

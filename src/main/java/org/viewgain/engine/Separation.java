@@ -76,7 +76,7 @@ public final class Separation {
         Resolved.Imputer imp = ex.imputer(imputer);
         ImputationStage stage = new ImputationStage(ex);
         for (int f = 0; f < ex.plan().folds(0); f++) {
-            ImputedFold fold = stage.run(imp, 0, 0, f, InnerFolds.of(ex, 0, f));
+            ImputedFold fold = stage.run(imp, 0, ex.plan(), 0, f);
             for (int i : ex.plan().test(0, f)) {
                 out[i] = fold.imputed()[i];
             }

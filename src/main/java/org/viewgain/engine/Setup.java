@@ -36,8 +36,9 @@ public final class Setup {
         StudyData data = DataLoader.load(spec);
         checkCohort(spec, data, problems);
         problems.throwIfAny();
-        FoldPlan plan = plan(spec, data);
+        FoldPlan plan = plan(spec, data, data.y());
         List<Pipeline> pipelines = Experiment.pipelines(spec.featureSets(), imputers, classifiers);
+        checkExternalPermutations(spec, imputers, pipelines, problems);
         Preprocessing prep = preprocessing(spec, data, methods, problems);
         problems.throwIfAny();
         double[][] base = data.subjects().stream().map(s -> data.source().base(s.id())).toArray(double[][]::new);
@@ -59,6 +60,27 @@ public final class Setup {
             problems.throwIfAny();
         }
         return ex;
+    }
+
+    /**
+     * An {@code external} imputer's file holds the imputations of the run's own fold plan, but the permutation test
+     * re-draws a stratified plan from every permutation's labels, whose training sets the file cannot cover.
+     */
+    private static void checkExternalPermutations(ExperimentSpec spec, List<Resolved.Imputer> imputers,
+                                                  List<Pipeline> pipelines, Problems problems) {
+        if (spec.significance().permutations() == 0 || !planDependsOnLabels(spec)) {
+            return;
+        }
+        for (Resolved.Imputer imp : imputers) {
+            boolean used = pipelines.stream().anyMatch(p -> p.imputer().equals(imp.name()));
+            if (used && org.viewgain.imputation.ExternalImputer.METHOD.equals(imp.method().method())) {
+                problems.add("significance.permutations", "imputer '" + imp.name() + "' is external, but the"
+                        + " permutation test re-draws the stratified folds from each permutation's labels and would"
+                        + " need imputations for folds its file does not have; use validation.outer.scheme"
+                        + " leave-one-out or leave-site-out, or permutations: 0");
+                return;
+            }
+        }
     }
 
     /** The steps of {@code features.adjust}, {@code features.harmonize} and {@code features.select}. */
@@ -97,23 +119,38 @@ public final class Setup {
         return new Preprocessing(adjuster, harmonizer, f.select().method(), f.select().keep(), selectors);
     }
 
-    static FoldPlan plan(ExperimentSpec spec, StudyData data) {
+    /**
+     * The outer fold plan drawn for the given labels: the real ones for the run, a permutation's for the permutation
+     * test, which re-draws the plan exactly as the run drew it so that the observed and permuted statistics come
+     * from one procedure. Leave-one-out and leave-site-out plans do not depend on labels.
+     */
+    static FoldPlan plan(ExperimentSpec spec, StudyData data, int[] labels) {
         Specs.Validation v = spec.validation();
         return switch (v.scheme()) {
             case LEAVE_ONE_OUT -> FoldPlan.leaveOneOut(data.n());
             case LEAVE_SITE_OUT -> FoldPlan.leaveSiteOut(data.subjects().stream().map(Subject::site)
                     .toArray(String[]::new));
-            default -> FoldPlan.stratifiedKFold(outerStrata(spec, data), v.folds(), v.repeats(), spec.seed());
+            default -> FoldPlan.stratifiedKFold(outerStrata(spec, data, labels), v.folds(), v.repeats(),
+                    spec.seed());
         };
     }
 
-    /** Group, or group x site when a site column is given. */
-    static int[] outerStrata(ExperimentSpec spec, StudyData data) {
+    /** True when the outer plan is drawn from the labels (stratified k-fold). */
+    static boolean planDependsOnLabels(ExperimentSpec spec) {
+        return spec.validation().scheme() == Specs.Scheme.STRATIFIED_K_FOLD;
+    }
+
+    /**
+     * Group x target observed, x site when a site column is given: the complete-case feature sets then get folds as
+     * balanced as the whole cohort's.
+     */
+    static int[] outerStrata(ExperimentSpec spec, StudyData data, int[] labels) {
         Map<String, Integer> codes = new HashMap<>();
         int[] s = new int[data.n()];
         for (int i = 0; i < data.n(); i++) {
             Subject sub = data.subjects().get(i);
-            String key = data.y()[i] + "|" + (spec.cohort().site() == null ? "" : sub.site());
+            String key = labels[i] + "|" + data.hasTarget(i) + "|"
+                    + (spec.cohort().site() == null ? "" : sub.site());
             s[i] = codes.computeIfAbsent(key, k -> codes.size());
         }
         return s;

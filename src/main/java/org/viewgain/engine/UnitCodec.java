@@ -2,6 +2,7 @@ package org.viewgain.engine;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.node.NullNode;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.ArrayList;
@@ -81,7 +82,7 @@ final class UnitCodec {
                     .add(p.predicted()).add(d(p.score()));
             a.add(doubles(p.scores()));
         }
-        o.set("choice", choice(out.choice()));
+        o.set("choice", out.choice() == null ? NullNode.getInstance() : choice(out.choice()));
         Importance.Fold f = out.importance();
         if (f != null) {
             ObjectNode imp = o.putObject("importance");
@@ -119,7 +120,8 @@ final class UnitCodec {
                     f.get("fold").asInt(), f.get("selected").asBoolean(), names, doubles(f.get("values")),
                     text(f.get("kind")));
         }
-        return new ClassifierStage.Output(preds, choice(o.get("choice")), imp);
+        JsonNode c = o.get("choice");
+        return new ClassifierStage.Output(preds, c == null || c.isNull() ? null : choice(c), imp);
     }
 
     ObjectNode permutation(String key, double statistic) {
@@ -173,7 +175,7 @@ final class UnitCodec {
 
     private static JsonNode doubles(double[] v) {
         if (v == null) {
-            return JSON.nullNode();
+            return com.fasterxml.jackson.databind.node.NullNode.getInstance();
         }
         ArrayNode a = JSON.createArrayNode();
         for (double x : v) {

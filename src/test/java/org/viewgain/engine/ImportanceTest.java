@@ -44,7 +44,7 @@ class ImportanceTest {
             for (int f = 0; f < ex.plan().folds(r); f++) {
                 int[] inner = InnerFolds.of(ex, r, f);
                 for (Pipeline p : ex.pipelines()) {
-                    out.add(stage.run(p, 0, r, f, inner, null, ex.data().y()).importance());
+                    out.add(stage.run(p, 0, ex.plan(), r, f, inner, null, ex.data().y()).importance());
                 }
             }
         }
@@ -112,7 +112,7 @@ class ImportanceTest {
         TestCohorts.synthetic(dir, 40, 6, 2, 1.0, 0.0, 23);
         Experiment ex = Setup.prepare(SpecLoader.load(TestCohorts.spec(dir, BODY.formatted(""))));
         Pipeline p = ex.pipelines().get(0);
-        assertNull(new ClassifierStage(ex).run(p, 1, 0, 0, InnerFolds.of(ex, 0, 0), null, ex.data().y())
+        assertNull(new ClassifierStage(ex).run(p, 1, ex.plan(), 0, 0, InnerFolds.of(ex, 0, 0), null, ex.data().y())
                 .importance());
     }
 }

@@ -42,9 +42,8 @@ class ImputationQualityTablesTest {
     void givenMeanAndRidgeOnALinearTarget_whenOneFoldIsImputed_thenMeanSkillIsZeroAndRidgeSkillPositive() {
         Experiment ex = experiment();
         ImputationStage stage = new ImputationStage(ex);
-        int[] innerOf = InnerFolds.of(ex, 0, 1);
-        ImputedFold avg = stage.run(ex.imputer("avg"), 0, 0, 1, innerOf);
-        ImputedFold ridge = stage.run(ex.imputer("ridge"), 0, 0, 1, innerOf);
+        ImputedFold avg = stage.run(ex.imputer("avg"), 0, ex.plan(), 0, 1);
+        ImputedFold ridge = stage.run(ex.imputer("ridge"), 0, ex.plan(), 0, 1);
         assertTrue(avg.quality().size() >= 5, "test subjects with a target: " + avg.quality().size());
         assertEquals(avg.quality().size(), ridge.quality().size());
         for (int t = 0; t < avg.quality().size(); t++) {

@@ -16,13 +16,16 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.ValueSource;
 import org.junit.jupiter.api.Test;
 import org.viewgain.folds.FitContext;
+import org.viewgain.folds.FoldPlan;
+import org.viewgain.spec.FeatureSet;
 import org.viewgain.spec.SpecLoader;
 import org.viewgain.testing.TestCohorts;
 
 /**
  * Leakage canary: recording stand-ins for the scaler, the imputers and the classifiers show that no fit ever sees an
  * outer-test subject (its target view or its label), nor an inner-validation subject of its own inner fold, in every
- * fold and for both ways of imputing training subjects.
+ * fold and for both ways of imputing training subjects, and in the permutation test, whose fits use the permuted
+ * labels and the fold plan drawn from them.
  */
 class LeakageCanaryTest {
     @TempDir
@@ -37,6 +40,7 @@ class LeakageCanaryTest {
             classifiers:
               - { name: lr, method: logistic, grid: { lambda: [0.1, 10] } }
             validation: { outer: { folds: 4, repeats: 2 }, inner: { folds: 3 } }
+            significance: { permutations: 2, bootstrap: 0 }
             """;
 
     Experiment run(String mode, Recording rec) {
@@ -64,35 +68,56 @@ class LeakageCanaryTest {
     /** Every way a recorded fit could have seen what it must not; empty when leak-free. */
     static List<String> leaks(Experiment ex, List<Recording.Fit> fits) {
         List<String> out = new ArrayList<>();
+        for (Recording.Fit fit : fits) {
+            int k = fit.ctx().permutation();
+            if (k == 0) {
+                out.addAll(leaks(ex, fit, ex.data().y()));
+                continue;
+            }
+            // a permutation's fit belongs to one of the two populations (everyone, or those with a target), each
+            // with its own permuted labels and the plan drawn from them: it must be clean under one of them
+            List<String> all = leaks(ex, fit, PermutedLabels.of(ex, k, FeatureSet.SOURCE));
+            List<String> withTarget = leaks(ex, fit, PermutedLabels.of(ex, k, FeatureSet.TARGET));
+            if (!all.isEmpty() && !withTarget.isEmpty()) {
+                out.addAll(all);
+            }
+        }
+        return out;
+    }
+
+    /** The leaks of one fit made with the given labels and the plan drawn from them. */
+    private static List<String> leaks(Experiment ex, Recording.Fit fit, int[] labels) {
+        List<String> out = new ArrayList<>();
         Map<String, Integer> position = new HashMap<>();
         for (int i = 0; i < ex.data().n(); i++) {
             position.put(ex.data().id(i), i);
         }
-        for (Recording.Fit fit : fits) {
-            FitContext c = fit.ctx();
-            Set<Integer> forbidden = new HashSet<>();
-            for (int i : ex.plan().test(c.repeat(), c.outerFold())) {
-                forbidden.add(i);
-            }
-            if (c.innerFold() != FitContext.WHOLE) {
-                int[] innerOf = InnerFolds.of(ex, c.repeat(), c.outerFold());
-                for (int i = 0; i < innerOf.length; i++) {
-                    if (innerOf[i] == c.innerFold()) {
-                        forbidden.add(i);
-                    }
+        FoldPlan plan = ex.planFor(labels);
+        FitContext c = fit.ctx();
+        Set<Integer> forbidden = new HashSet<>();
+        for (int i : plan.test(c.repeat(), c.outerFold())) {
+            forbidden.add(i);
+        }
+        if (c.innerFold() != FitContext.WHOLE) {
+            // imputers are tuned and cross-fitted in label-free folds, everything else in label-stratified ones
+            int[] innerOf = fit.kind().equals("imputer") ? ImputationFolds.of(ex, plan, c.repeat(), c.outerFold())
+                    : InnerFolds.of(ex, plan, labels, c.repeat(), c.outerFold());
+            for (int i = 0; i < innerOf.length; i++) {
+                if (innerOf[i] == c.innerFold()) {
+                    forbidden.add(i);
                 }
             }
-            for (int k = 0; k < fit.ids().size(); k++) {
-                int i = position.get(fit.ids().get(k));
-                if (forbidden.contains(i)) {
-                    out.add(fit.kind() + " " + c + " saw held-out subject " + fit.ids().get(k));
-                }
-                if (fit.kind().equals("imputer") && !ex.data().hasTarget(i)) {
-                    out.add("imputer " + c + " was given subject " + fit.ids().get(k) + " without a target");
-                }
-                if (fit.labels() != null && fit.labels()[k] != ex.data().y()[i]) {
-                    out.add(fit.kind() + " " + c + " got a wrong label for " + fit.ids().get(k));
-                }
+        }
+        for (int k = 0; k < fit.ids().size(); k++) {
+            int i = position.get(fit.ids().get(k));
+            if (forbidden.contains(i)) {
+                out.add(fit.kind() + " " + c + " saw held-out subject " + fit.ids().get(k));
+            }
+            if (fit.kind().equals("imputer") && !ex.data().hasTarget(i)) {
+                out.add("imputer " + c + " was given subject " + fit.ids().get(k) + " without a target");
+            }
+            if (fit.labels() != null && fit.labels()[k] != labels[i]) {
+                out.add(fit.kind() + " " + c + " got a wrong label for " + fit.ids().get(k));
             }
         }
         return out;
@@ -113,6 +138,10 @@ class LeakageCanaryTest {
                 "scaler:TUNE", "scaler:FINAL")), kinds.toString());
         // inner imputer fits happen in both modes here: the nn grid has two points to choose between
         assertTrue(kinds.contains("imputer:CROSS_FIT"), kinds.toString());
+        // and the permutations' own imputer and classifier fits were watched too
+        for (String kind : List.of("imputer", "classifier")) {
+            assertTrue(fits.stream().anyMatch(f -> f.ctx().permutation() > 0 && f.kind().equals(kind)), kind);
+        }
     }
 
     @Test
