@@ -11,6 +11,7 @@ import org.viewgain.cohort.Rows;
 import org.viewgain.folds.FitContext;
 import org.viewgain.folds.FoldPlan;
 import org.viewgain.folds.Seeds;
+import org.viewgain.imputation.ExternalImputer;
 import org.viewgain.prep.Transform;
 import org.viewgain.spec.FeatureSet;
 import org.viewgain.spec.Params;
@@ -171,12 +172,26 @@ final class ClassifierStage {
             int[] yFit = pick(yTrain, fp);
             FitContext prepCtx = base.at(j, FitContext.Role.TUNE, Seeds.derive(seed, "prep", base.permutation(),
                     base.repeat(), base.outerFold(), j, p.label()));
-            Rows fitRows = trainRows.select(fp);
-            // fitRows shares its arrays with trainRows, which later inner folds read: not owned
-            FitChain.Upstream fitted = FitChain.upstream(ex, prepCtx, fitRows, yFit, false);
+            boolean nested = nestedImputation(p);
+            Rows fitRows;
+            Rows valRows;
+            if (nested) {
+                // imputations from imputers that never saw a target of this inner fold (see ImputationStage.nested)
+                int[] fitSubjects = pick(train, fp);
+                int[] valSubjects = pick(train, vp);
+                ImputedFold inner = new ImputationStage(ex).nested(ex.imputer(p.imputer()), base.permutation(),
+                        base.repeat(), base.outerFold(), j, fitSubjects, valSubjects);
+                fitRows = rows(p.featureSet(), fitSubjects, inner);
+                valRows = rows(p.featureSet(), valSubjects, inner);
+            } else {
+                fitRows = trainRows.select(fp);
+                valRows = trainRows.select(vp);
+            }
+            // selected rows share their arrays with trainRows, which later inner folds read: owned only when nested
+            FitChain.Upstream fitted = FitChain.upstream(ex, prepCtx, fitRows, yFit, nested);
             FitChain.Steps up = fitted.steps();
             Rows fitUp = fitted.transformed();
-            Rows valUp = up.apply(trainRows.select(vp));
+            Rows valUp = up.apply(valRows);
             Transform.Fitted sel = null;
             int selFor = Integer.MIN_VALUE;
             Rows fitIn = fitUp;
@@ -210,6 +225,20 @@ final class ClassifierStage {
             out[g] = Double.isNaN(v) ? Double.NEGATIVE_INFINITY : v;
         }
         return out;
+    }
+
+    /**
+     * True when tuning this pipeline uses nested imputations: its features include imputed ones, built by an imputer
+     * the engine fits (an {@code external} imputer's file holds the outer level's imputations only; tuning then uses
+     * the outer training set's cross-fitted imputations, whose imputers saw the inner fold's targets, never labels).
+     */
+    boolean nestedImputation(Pipeline p) {
+        return nestedImputation(ex, p);
+    }
+
+    static boolean nestedImputation(Experiment ex, Pipeline p) {
+        return p.featureSet().needsImputer()
+                && !ExternalImputer.METHOD.equals(ex.imputer(p.imputer()).method().method());
     }
 
     Map<String, Double> metrics(int[] truth, int[] pred, double[][] scores, int classes) {

@@ -69,6 +69,11 @@ public record Experiment(ExperimentSpec spec, StudyData data, FoldPlan plan, Lis
         return !fs.needsObservedTarget() || data.hasTarget(i);
     }
 
+    /** Fits of one imputation: cross-fits over the grid when tuned or cross-fitted, and the final fit. */
+    private static long imputerFits(Resolved.Imputer i, boolean crossFit, int k) {
+        return (crossFit || i.grid().size() > 1 ? (long) i.grid().size() * k : 0) + 1;
+    }
+
     /** How many model fits (imputers and classifiers, tuning included) the run will do. */
     public long modelFits() {
         int k = spec.validation().innerFolds();
@@ -77,12 +82,15 @@ public record Experiment(ExperimentSpec spec, StudyData data, FoldPlan plan, Lis
         long perFold = 0;
         if (anyImputed) {
             for (Resolved.Imputer i : imputers) {
-                perFold += (crossFit || i.grid().size() > 1 ? (long) i.grid().size() * k : 0) + 1;
+                perFold += imputerFits(i, crossFit, k);
             }
         }
         for (Pipeline p : pipelines) {
             int g = classifier(p.classifier()).grid().size() * prep.selectionPoints();
             perFold += (g > 1 ? (long) g * k : 0) + 1;
+            if (g > 1 && ClassifierStage.nestedImputation(this, p)) {
+                perFold += k * imputerFits(imputer(p.imputer()), crossFit, k); // nested imputations for tuning
+            }
         }
         long folds = 0;
         for (int r = 0; r < plan.repeats(); r++) {

@@ -16,9 +16,13 @@ final class ImputationFolds {
     private ImputationFolds() {
     }
 
-    /** Imputation fold of every subject position; -1 for positions outside the outer training set. */
+    /** Imputation fold of every subject position in an outer fold of a plan; -1 outside its training set. */
     static int[] of(Experiment ex, FoldPlan plan, int repeat, int fold) {
-        int[] train = plan.train(repeat, fold);
+        return of(ex, plan.train(repeat, fold), Seeds.derive(ex.spec().seed(), "imputation-folds", repeat, fold));
+    }
+
+    /** Imputation fold of every subject position of a training set; -1 for positions outside it. */
+    static int[] of(Experiment ex, int[] train, long seed) {
         boolean sites = ex.spec().cohort().site() != null;
         Map<String, Integer> codes = new HashMap<>();
         int[] strata = new int[train.length];
@@ -27,8 +31,7 @@ final class ImputationFolds {
             String key = (sites ? s.site() : "") + "|" + ex.data().hasTarget(train[k]);
             strata[k] = codes.computeIfAbsent(key, c -> codes.size());
         }
-        int[] a = FoldPlan.stratifiedAssignment(strata, ex.spec().validation().innerFolds(),
-                Seeds.derive(ex.spec().seed(), "imputation-folds", repeat, fold));
+        int[] a = FoldPlan.stratifiedAssignment(strata, ex.spec().validation().innerFolds(), seed);
         int[] out = new int[ex.data().n()];
         java.util.Arrays.fill(out, -1);
         for (int k = 0; k < train.length; k++) {

@@ -28,10 +28,58 @@ final class ImputationStage {
 
     /** Fits the imputer in one outer fold of a plan (the run's, or a permutation's re-drawn one). */
     ImputedFold run(Resolved.Imputer imp, int permutation, FoldPlan plan, int repeat, int fold) {
+        FitContext base = new FitContext(permutation, repeat, fold, FitContext.WHOLE, FitContext.Role.FINAL, 0L);
+        int[] train = plan.train(repeat, fold);
+        int[] test = plan.test(repeat, fold);
+        Level outer = new Level(base, FitContext.Role.CROSS_FIT, FitContext.Role.FINAL,
+                ImputationFolds.of(ex, train, Seeds.derive(ex.spec().seed(), "imputation-folds", repeat, fold)),
+                new Object[] {"impute", repeat, fold});
+        return fit(imp, outer, train, test, true);
+    }
+
+    /**
+     * The imputations for tuning a classifier in inner fold {@code j} of an outer fold: the outer procedure applied
+     * one level down, with the outer training subjects outside fold {@code j} as the training set (imputation folds,
+     * grid choice, cross-fitting) and the subjects of fold {@code j} imputed by the imputer fitted on them. No imputer
+     * behind these imputations saw a target of fold {@code j}, so the inner validation is as clean as the outer test.
+     *
+     * @param fit        outer training subjects outside inner fold {@code j}
+     * @param validation outer training subjects in inner fold {@code j}
+     */
+    ImputedFold nested(Resolved.Imputer imp, int permutation, int repeat, int fold, int j, int[] fit,
+                       int[] validation) {
+        FitContext base = new FitContext(permutation, repeat, fold, j, FitContext.Role.NESTED, 0L);
+        Level inner = new Level(base, FitContext.Role.NESTED, FitContext.Role.NESTED,
+                ImputationFolds.of(ex, fit, Seeds.derive(ex.spec().seed(), "imputation-folds", repeat, fold,
+                        "nested", j)),
+                new Object[] {"impute", repeat, fold, "nested", j});
+        return fit(imp, inner, fit, validation, false);
+    }
+
+    /**
+     * Where a level of imputation happens: the context its fits derive from, the roles of its cross-fits and of its
+     * final fit, its imputation folds and the head of its seed derivations.
+     */
+    private record Level(FitContext base, FitContext.Role crossFitRole, FitContext.Role finalRole, int[] foldOf,
+                         Object[] seedHead) {
+        long seed(long runSeed, Object... tail) {
+            Object[] parts = java.util.Arrays.copyOf(seedHead, seedHead.length + tail.length);
+            System.arraycopy(tail, 0, parts, seedHead.length, tail.length);
+            return Seeds.derive(runSeed, parts);
+        }
+
+        /** The context of a fit: the inner fold of a cross-fit at the outer level, the level's own otherwise. */
+        FitContext at(FitContext.Role role, int crossFitFold, long seed) {
+            int inner = role == FitContext.Role.CROSS_FIT ? crossFitFold : base.innerFold();
+            return base.at(inner, role, seed);
+        }
+    }
+
+    private ImputedFold fit(Resolved.Imputer imp, Level level, int[] train, int[] test, boolean scoreTest) {
         StudyData d = ex.data();
         boolean crossFit = ex.spec().imputedForTraining() == Specs.TrainingImputation.CROSS_FITTED;
         int k = ex.spec().validation().innerFolds();
-        FitContext base = new FitContext(permutation, repeat, fold, FitContext.WHOLE, FitContext.Role.FINAL, 0L);
+        long runSeed = ex.spec().seed();
 
         // kept in single precision (they stay in memory for the whole run); quality is measured before rounding
         float[][] out = new float[d.n()][];
@@ -39,9 +87,9 @@ final class ImputationStage {
         double innerMae = Double.NaN;
         if (ImputationTasks.runsCrossFits(ex, imp)) {
             List<ImputationTasks.Task> tasks = new ArrayList<>(k);
-            int[] foldOf = ImputationFolds.of(ex, plan, repeat, fold);
             for (int j = 0; j < k; j++) {
-                tasks.add(ImputationTasks.crossFit(ex, plan, repeat, fold, foldOf, j));
+                tasks.add(ImputationTasks.crossFit(ex, level.base().repeat(), level.base().outerFold(), train,
+                        level.foldOf(), j));
             }
             double best = Double.POSITIVE_INFINITY;
             float[][] bestPreds = null;
@@ -55,8 +103,8 @@ final class ImputationStage {
                         continue;
                     }
                     int[] fitSet = task.trainPositions();
-                    FitContext ctx = base.at(task.inner(), FitContext.Role.CROSS_FIT, Seeds.derive(ex.spec().seed(),
-                            "impute", repeat, fold, task.inner(), imp.name(), p.toString()));
+                    FitContext ctx = level.at(level.crossFitRole(), task.inner(),
+                            level.seed(runSeed, task.inner(), imp.name(), p.toString()));
                     ViewImputer.Fitted fitted = imp.method().fit(ctx, sourceRows(fitSet), targetRows(fitSet), p);
                     double[][] got = fitted.impute(ctx, sourceRows(predSet));
                     for (int t = 0; t < predSet.length; t++) {
@@ -80,15 +128,16 @@ final class ImputationStage {
             }
             innerMae = best;
             if (crossFit) {
-                for (int i : plan.train(repeat, fold)) {
+                for (int i : train) {
                     out[i] = bestPreds[i];
                 }
             }
         }
-        ImputationTasks.Task last = ImputationTasks.finalTask(ex, plan, repeat, fold);
+        ImputationTasks.Task last = ImputationTasks.finalTask(ex, level.base().repeat(), level.base().outerFold(),
+                train, test);
         int[] withTarget = last.trainPositions();
-        FitContext ctx = base.at(FitContext.WHOLE, FitContext.Role.FINAL,
-                Seeds.derive(ex.spec().seed(), "impute", repeat, fold, "final", imp.name(), chosen.toString()));
+        FitContext ctx = level.at(level.finalRole(), FitContext.WHOLE,
+                level.seed(runSeed, "final", imp.name(), chosen.toString()));
         ViewImputer.Fitted fitted = imp.method().fit(ctx, sourceRows(withTarget), targetRows(withTarget), chosen);
         int[] toImpute = last.imputePositions();
         double[][] got = fitted.impute(ctx, sourceRows(toImpute));
@@ -102,8 +151,11 @@ final class ImputationStage {
                 out[i] = d.target().stored(d.id(i)); // shared with the view, not copied
             }
         }
+        if (!scoreTest) {
+            return new ImputedFold(out, chosen, innerMae, List.of(), null);
+        }
         List<ImputedFold.Quality> quality = new ArrayList<>();
-        double[] edgeErrors = quality(ctx, withTarget, plan.test(repeat, fold), exact, quality);
+        double[] edgeErrors = quality(ctx, withTarget, test, exact, quality);
         return new ImputedFold(out, chosen, innerMae, quality, edgeErrors);
     }
 

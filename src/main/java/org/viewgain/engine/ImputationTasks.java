@@ -3,7 +3,6 @@ package org.viewgain.engine;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
-import org.viewgain.folds.FoldPlan;
 import org.viewgain.imputation.ExternalImputer;
 import org.viewgain.spec.Specs;
 
@@ -46,15 +45,17 @@ public final class ImputationTasks {
 
     /** The final task of one outer fold of the run's plan. */
     public static Task finalTask(Experiment ex, int repeat, int fold) {
-        return finalTask(ex, ex.plan(), repeat, fold);
+        return finalTask(ex, repeat, fold, ex.plan().train(repeat, fold), ex.plan().test(repeat, fold));
     }
 
-    /** The final task of one outer fold of a plan. */
-    static Task finalTask(Experiment ex, FoldPlan plan, int repeat, int fold) {
+    /**
+     * The final task of a training set and the subjects it predicts: an outer fold's, or one level down, an outer
+     * training set minus a classifier inner fold and that fold (nested imputations for tuning).
+     */
+    static Task finalTask(Experiment ex, int repeat, int fold, int[] train, int[] test) {
         StudyData d = ex.data();
-        int[] train = plan.train(repeat, fold);
         int[] withTarget = Arrays.stream(train).filter(d::hasTarget).toArray();
-        int[] impute = plan.test(repeat, fold).clone();
+        int[] impute = test.clone();
         if (ex.spec().imputedForTraining() == Specs.TrainingImputation.OBSERVED) {
             int[] without = Arrays.stream(train).filter(i -> !d.hasTarget(i)).toArray();
             impute = concat(impute, without);
@@ -63,10 +64,9 @@ public final class ImputationTasks {
         return new Task(repeat, fold, FINAL, -1, list(withTarget), list(impute));
     }
 
-    /** Cross-fit task {@code j} (from 0) of one outer fold of a plan, with the folds of {@link ImputationFolds#of}. */
-    static Task crossFit(Experiment ex, FoldPlan plan, int repeat, int fold, int[] foldOf, int j) {
+    /** Cross-fit task {@code j} (from 0) of a training set, with the folds of {@link ImputationFolds#of}. */
+    static Task crossFit(Experiment ex, int repeat, int fold, int[] train, int[] foldOf, int j) {
         StudyData d = ex.data();
-        int[] train = plan.train(repeat, fold);
         int[] fitSet = Arrays.stream(train).filter(i -> d.hasTarget(i) && foldOf[i] != j).toArray();
         int[] predSet = Arrays.stream(train).filter(i -> foldOf[i] == j).toArray();
         return new Task(repeat, fold, CROSS_FIT, j, list(fitSet), list(predSet));
@@ -82,7 +82,7 @@ public final class ImputationTasks {
         if (crossFitNeeded(ex)) {
             int[] foldOf = ImputationFolds.of(ex, ex.plan(), repeat, fold);
             for (int j = 0; j < ex.spec().validation().innerFolds(); j++) {
-                Task t = crossFit(ex, ex.plan(), repeat, fold, foldOf, j);
+                Task t = crossFit(ex, repeat, fold, ex.plan().train(repeat, fold), foldOf, j);
                 if (!t.impute().isEmpty()) {
                     out.add(t);
                 }

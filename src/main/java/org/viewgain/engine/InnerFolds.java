@@ -5,8 +5,7 @@ import org.viewgain.folds.Seeds;
 
 /**
  * Inner folds for tuning a classifier inside an outer training set: stratified by group (the labels in use, so a
- * permutation's inner folds are balanced for the permuted labels as the run's are for the real ones) and by whether
- * the target was observed, seeded by
+ * permutation's inner folds are balanced for the permuted labels as the run's are for the real ones), seeded by
  * (run seed, repeat, outer fold). Imputers use {@link ImputationFolds}, which never depend on labels.
  */
 final class InnerFolds {
@@ -23,8 +22,7 @@ final class InnerFolds {
         int[] train = plan.train(repeat, fold);
         int[] strata = new int[train.length];
         for (int k = 0; k < train.length; k++) {
-            // group x target observed: complete-case feature sets get inner folds balanced by group too
-            strata[k] = 2 * labels[train[k]] + (ex.data().hasTarget(train[k]) ? 1 : 0);
+            strata[k] = labels[train[k]];
         }
         int[] a = FoldPlan.stratifiedAssignment(strata, ex.spec().validation().innerFolds(),
                 Seeds.derive(ex.spec().seed(), "inner-folds", repeat, fold));

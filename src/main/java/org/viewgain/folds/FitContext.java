@@ -24,7 +24,12 @@ public record FitContext(int permutation, int repeat, int outerFold, int innerFo
         /** Imputing training subjects from imputers fitted on the other training subjects. */
         CROSS_FIT,
         /** The final fit on the outer training set, used to predict the outer test subjects. */
-        FINAL
+        FINAL,
+        /**
+         * An imputer fit for tuning a classifier in inner fold {@code innerFold}: fitted on outer-training subjects
+         * outside that fold only (its own cross-fits exclude more), so the fold's validation stays clean.
+         */
+        NESTED
     }
 
     /** A context for a fit of the same place with another role, inner fold and seed. */

@@ -107,7 +107,7 @@ public final class ExternalImputer implements ViewImputer {
                     ExternalImputations.FINAL, 0);
             case CROSS_FIT -> new ExternalImputations.Key(ctx.repeat() + 1, ctx.outerFold() + 1,
                     ExternalImputations.CROSS_FIT, ctx.innerFold() + 1);
-            case TUNE -> throw new IllegalStateException("external imputations exist for final and cross-fit fits"
+            case TUNE, NESTED -> throw new IllegalStateException("external imputations exist for final and cross-fit fits"
                     + " only, not for " + ctx);
         };
     }

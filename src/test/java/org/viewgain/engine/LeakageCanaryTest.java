@@ -23,7 +23,8 @@ import org.viewgain.testing.TestCohorts;
 
 /**
  * Leakage canary: recording stand-ins for the scaler, the imputers and the classifiers show that no fit ever sees an
- * outer-test subject (its target view or its label), nor an inner-validation subject of its own inner fold, in every
+ * outer-test subject (its target view or its label), nor an inner-validation subject of its own inner fold (nor do
+ * the imputers behind the imputed features a classifier is tuned on), in every
  * fold and for both ways of imputing training subjects, and in the permutation test, whose fits use the permuted
  * labels and the fold plan drawn from them.
  */
@@ -99,8 +100,10 @@ class LeakageCanaryTest {
             forbidden.add(i);
         }
         if (c.innerFold() != FitContext.WHOLE) {
-            // imputers are tuned and cross-fitted in label-free folds, everything else in label-stratified ones
-            int[] innerOf = fit.kind().equals("imputer") ? ImputationFolds.of(ex, plan, c.repeat(), c.outerFold())
+            // imputers are tuned and cross-fitted in label-free folds, everything else in label-stratified ones; a
+            // nested imputer fit (for tuning a classifier) must not see the classifier's inner fold
+            boolean imputationFold = fit.kind().equals("imputer") && c.role() != FitContext.Role.NESTED;
+            int[] innerOf = imputationFold ? ImputationFolds.of(ex, plan, c.repeat(), c.outerFold())
                     : InnerFolds.of(ex, plan, labels, c.repeat(), c.outerFold());
             for (int i = 0; i < innerOf.length; i++) {
                 if (innerOf[i] == c.innerFold()) {
@@ -138,6 +141,8 @@ class LeakageCanaryTest {
                 "scaler:TUNE", "scaler:FINAL")), kinds.toString());
         // inner imputer fits happen in both modes here: the nn grid has two points to choose between
         assertTrue(kinds.contains("imputer:CROSS_FIT"), kinds.toString());
+        // the nested imputer fits behind classifier tuning (lr has a grid) were watched
+        assertTrue(kinds.contains("imputer:NESTED"), kinds.toString());
         // and the permutations' own imputer and classifier fits were watched too
         for (String kind : List.of("imputer", "classifier")) {
             assertTrue(fits.stream().anyMatch(f -> f.ctx().permutation() > 0 && f.kind().equals(kind)), kind);

@@ -92,10 +92,12 @@ class PermutationSchemeTest {
             assertNotSame(ex.plan(), plan);
             for (int r = 0; r < plan.repeats(); r++) {
                 final int folds = plan.folds(r);
-                // every (group, site) stratum of the permuted labels is dealt evenly: counts differ by at most one
+                // every (group, target observed, site) stratum of the permuted labels is dealt evenly: counts
+                // differ by at most one
                 Map<String, int[]> perFold = new HashMap<>();
                 for (int i = 0; i < labels.length; i++) {
-                    String stratum = labels[i] + "|" + ex.data().subjects().get(i).site();
+                    String stratum = labels[i] + "|" + ex.data().hasTarget(i) + "|"
+                            + ex.data().subjects().get(i).site();
                     perFold.computeIfAbsent(stratum, s -> new int[folds])[plan.foldOf(r, i)]++;
                 }
                 for (int[] counts : perFold.values()) {

@@ -46,8 +46,10 @@ class SequentialStoppingTest {
         PermutationResult noSignal = seq.get(0);
         PermutationResult signal = seq.get(1);
         assertEquals(99, full.get(0).null_().length);
-        assertTrue(noSignal.stoppedEarly() && noSignal.null_().length < 30,
-                "stopped after " + noSignal.null_().length);
+        // with h = 5 the expected number of draws is about h / p (Besag & Clifford 1991); this pipeline's full-run p
+        // is 0.10, so about 50 of the 99 are expected (here 31): it must stop before the planned 99
+        assertTrue(noSignal.stoppedEarly() && noSignal.null_().length < 99,
+                "stopped after " + noSignal.null_().length + ", full-run p " + full.get(0).pValue());
         assertTrue(full.get(0).pValue() > 0.05 && full.get(1).pValue() <= 0.05);
         assertTrue(!signal.stoppedEarly() && signal.null_().length == 99);
         // Besag & Clifford 1991: stopped early after l draws with h exceedances, p = h / l
