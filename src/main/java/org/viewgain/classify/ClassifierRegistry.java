@@ -13,7 +13,8 @@ public final class ClassifierRegistry {
     private static final Map<String, Supplier<ClassifierMethod>> FACTORIES = new LinkedHashMap<>();
 
     static {
-        FACTORIES.put("random-forest", SmileForest::new);
+        FACTORIES.put("random-forest", BinnedForest::new);
+        FACTORIES.put("smile-random-forest", SmileForest::new);
         FACTORIES.put("svm-linear", LinearSvm::new);
         FACTORIES.put("svm-rbf", SmileSvm::new);
         FACTORIES.put("logistic", SmileLogistic::new);

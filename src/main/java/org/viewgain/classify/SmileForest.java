@@ -18,7 +18,7 @@ import smile.data.formula.Formula;
 import smile.data.vector.IntVector;
 
 /**
- * {@code random-forest}: Breiman (2001), Machine Learning 45:5-32, through Smile's {@code RandomForest} with Gini
+ * {@code smile-random-forest}: Breiman (2001), Machine Learning 45:5-32, through Smile's {@code RandomForest} with Gini
  * splits and bootstrap samples. Every tree gets its own seed derived from {@link FitContext#seed()}, so the forest
  * does not depend on Smile's thread-local generator or on which pool thread grows which tree. Scores are the
  * fractions of tree votes per class. Importance: the impurity (Gini) decrease of the splits on each feature, summed
@@ -30,17 +30,12 @@ public final class SmileForest implements ClassifierMethod {
 
     @Override
     public String method() {
-        return "random-forest";
+        return "smile-random-forest";
     }
 
     @Override
     public List<ParamDef> parameters() {
-        return List.of(
-                ParamDef.integer("trees", 1, 100_000, 500, "number of trees"),
-                ParamDef.numberOrChoice("features-per-split", Double.MIN_VALUE, 1, List.of("sqrt", "log2"), "sqrt",
-                        "features tried at each split: a fraction of the features in (0,1], sqrt or log2 of their count"),
-                ParamDef.integer("max-depth", 1, 10_000, 20, "maximum depth of a tree"),
-                ParamDef.integer("min-node-size", 1, 100_000, 2, "smallest number of training rows in a leaf"));
+        return BinnedForest.PARAMETERS;
     }
 
     @Override
@@ -48,17 +43,9 @@ public final class SmileForest implements ClassifierMethod {
         return true;
     }
 
-    /** Features tried at each split: sqrt and log2 round down (at least 1); a fraction rounds to nearest (1..p). */
+    /** See {@link BinnedForest#featuresPerSplit}. */
     static int featuresPerSplit(Object setting, int p) {
-        double m;
-        if ("sqrt".equals(setting)) {
-            m = Math.floor(Math.sqrt(p));
-        } else if ("log2".equals(setting)) {
-            m = Math.floor(Math.log(p) / Math.log(2));
-        } else {
-            m = Math.rint(((Number) setting).doubleValue() * p);
-        }
-        return (int) Math.max(1, Math.min(p, m));
+        return BinnedForest.featuresPerSplit(setting, p);
     }
 
     /** Distinct seeds above 1 (Smile ignores a tree seed of 1 or less), derived from the fit seed. */

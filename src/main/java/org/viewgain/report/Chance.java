@@ -63,7 +63,9 @@ final class Chance {
                     Html.esc(r.s("stopped_early")), Html.esc(r.s("exchangeability")),
                     beats(r) ? "<strong>better than chance</strong>" : "not shown"));
         }
-        return "<p>Labels permuted and the whole nested pipeline re-run on the same folds; p = (C + 1) / (N + 1) "
+        return "<p>Labels permuted among the subjects each pipeline uses (within sites when a site is given) and the "
+                + "whole nested procedure re-run as the run ran it: stratified folds drawn from the permuted labels, "
+                + "imputers and everything else re-fitted; p = (C + 1) / (N + 1) "
                 + "(Ojala &amp; Garriga 2010), where C of N permutations reached the observed value. Level "
                 + Html.esc(CsvTable.formatNumber(d.alpha())) + ".</p>\n"
                 + Html.table("chance", List.of("pipeline", "metric", "observed", "permutations", "exceedances", "p",

@@ -140,7 +140,7 @@ public final class CheckReport {
     public static String costWarning(Experiment ex) {
         int widest = 0;
         for (org.viewgain.engine.Pipeline p : ex.pipelines()) {
-            if (ex.classifier(p.classifier()).method().method().equals("random-forest")) {
+            if (ex.classifier(p.classifier()).method().method().equals("smile-random-forest")) {
                 widest = Math.max(widest, ex.data().featureNames(p.featureSet()).size());
             }
         }
@@ -150,9 +150,9 @@ public final class CheckReport {
         if (widest <= WIDE_FOR_SMILE_FOREST) {
             return "";
         }
-        return "[viewgain] warning: random-forest (Smile) will see up to " + widest + " features per subject; its "
+        return "[viewgain] warning: smile-random-forest will see up to " + widest + " features per subject; its "
                 + "trees re-sort every feature at every split, so this can take hours (docs/benchmarks.md). "
-                + "Consider features.select, or method weka with class weka.classifiers.trees.RandomForest\n";
+                + "Consider the default random-forest, or features.select\n";
     }
 
     private static String describe(org.viewgain.cohort.View v) {

@@ -16,7 +16,7 @@ class SmileForestTest {
 
     private static final ReferenceTable CANCER = ReferenceTable.load("breast-cancer-wisconsin.csv");
     private static final ReferenceTable IRIS = ReferenceTable.load("iris.csv");
-    private final ClassifierMethod forest = ClassifierRegistry.create("random-forest", null, null);
+    private final ClassifierMethod forest = ClassifierRegistry.create("smile-random-forest", null, null);
     private final Params small = forest.resolve(Map.of("trees", 60));
 
     @Test

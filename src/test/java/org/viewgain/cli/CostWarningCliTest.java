@@ -32,12 +32,12 @@ class CostWarningCliTest {
                 feature-sets: [source]
                 validation: { outer: { folds: 3 }, inner: { folds: 2 } }
                 """;
-        String forest = "classifiers: [ { name: rf, method: random-forest, fixed: { trees: 5 } } ]\n";
+        String forest = "classifiers: [ { name: rf, method: smile-random-forest, fixed: { trees: 5 } } ]\n";
         String wide = check(forest + tail);
-        assertTrue(wide.contains("random-forest (Smile) will see up to 2100 features per subject"), wide);
+        assertTrue(wide.contains("smile-random-forest will see up to 2100 features per subject"), wide);
         String selected = check("features: { select: { method: variance, keep: 500 } }\n" + forest + tail);
-        assertFalse(selected.contains("random-forest (Smile)"), selected);
+        assertFalse(selected.contains("smile-random-forest will"), selected);
         String knn = check("classifiers: [ { name: k, method: knn, fixed: { k: 3 } } ]\n" + tail);
-        assertFalse(knn.contains("random-forest (Smile)"), knn);
+        assertFalse(knn.contains("smile-random-forest will"), knn);
     }
 }

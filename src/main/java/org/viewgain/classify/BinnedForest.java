@@ -1,0 +1,201 @@
+package org.viewgain.classify;
+
+import java.util.Arrays;
+import java.util.List;
+import java.util.SplittableRandom;
+import org.viewgain.cohort.Rows;
+import org.viewgain.folds.FitContext;
+import org.viewgain.folds.Seeds;
+import org.viewgain.spec.ParamDef;
+import org.viewgain.spec.Params;
+
+/**
+ * {@code random-forest}: Breiman's random forest (Breiman 2001, Machine Learning 45:5-32), written for the many
+ * refits of nested cross-validation and permutation tests on wide edge-level views. Each tree grows on a bootstrap
+ * sample; at every node {@code features-per-split} features are drawn afresh and the split with the largest Gini
+ * impurity decrease among them is taken; trees grow until a node is pure, reaches {@code max-depth}, or cannot be
+ * split into two children of at least {@code min-node-size} rows (bootstrap copies counted); a tree's scores are its
+ * leaf's class fractions, and the forest averages them over trees.
+ *
+ * <p>Split candidates: every feature is binned once per fit on its training values (label-free). A feature with at
+ * most {@value #MAX_BINS} distinct values gets every midpoint between consecutive distinct values as a candidate, as
+ * in CART; a feature with more gets {@value #MAX_BINS} quantile bins, and thresholds are the midpoints at the bin
+ * edges (the histogram approach of gradient-boosting libraries). Rows are coded once as bytes, feature-major, so
+ * finding a node's best split reads one contiguous array per feature and allocates nothing.
+ *
+ * <p>Every tree has its own seed derived from {@link FitContext#seed()}; trees are grown in order on the calling
+ * thread (the engine runs fits in parallel), so a fit is the same on any number of threads. Importance: the Gini
+ * decrease of every split on a feature, weighted by the rows in the node and summed over trees, kind {@code impurity}.
+ */
+public final class BinnedForest implements ClassifierMethod {
+    /** Largest number of bins per feature (codes fit an unsigned byte). */
+    static final int MAX_BINS = 255;
+
+    /** The parameters of every random forest method (this one and Smile's). */
+    static final List<ParamDef> PARAMETERS = List.of(
+            ParamDef.integer("trees", 1, 100_000, 500, "number of trees"),
+            ParamDef.numberOrChoice("features-per-split", Double.MIN_VALUE, 1, List.of("sqrt", "log2"), "sqrt",
+                    "features tried at each split: a fraction of the features in (0,1], sqrt or log2 of their count"),
+            ParamDef.integer("max-depth", 1, 10_000, 20, "maximum depth of a tree"),
+            ParamDef.integer("min-node-size", 1, 100_000, 2, "smallest number of training rows in a leaf"));
+
+    @Override
+    public String method() {
+        return "random-forest";
+    }
+
+    @Override
+    public List<ParamDef> parameters() {
+        return PARAMETERS;
+    }
+
+    @Override
+    public boolean producesScores() {
+        return true;
+    }
+
+    /** Features tried at each split: sqrt and log2 round down (at least 1); a fraction rounds to nearest (1..p). */
+    static int featuresPerSplit(Object setting, int p) {
+        double m;
+        if ("sqrt".equals(setting)) {
+            m = Math.floor(Math.sqrt(p));
+        } else if ("log2".equals(setting)) {
+            m = Math.floor(Math.log(p) / Math.log(2));
+        } else {
+            m = Math.rint(((Number) setting).doubleValue() * p);
+        }
+        return (int) Math.max(1, Math.min(p, m));
+    }
+
+    @Override
+    public Model fit(FitContext ctx, Rows x, int[] y, int classes, Params params) {
+        TrainingLabels.check(method(), x, y, classes);
+        Bins bins = Bins.of(x.x());
+        int trees = params.getInt("trees");
+        Grower grower = new Grower(bins, y, classes, featuresPerSplit(params.get("features-per-split"), x.p()),
+                params.getInt("max-depth"), params.getInt("min-node-size"));
+        Tree[] forest = new Tree[trees];
+        double[] importance = new double[x.p()];
+        for (int t = 0; t < trees; t++) {
+            forest[t] = grower.grow(new SplittableRandom(Seeds.derive(ctx.seed(), "forest-tree", t)), importance);
+        }
+        ClassifierMethod.Model model = rows -> {
+            int[] labels = new int[rows.n()];
+            double[][] scores = new double[rows.n()][classes];
+            for (int i = 0; i < rows.n(); i++) {
+                double[] row = rows.x()[i];
+                for (Tree tree : forest) {
+                    tree.addProbabilities(row, scores[i]);
+                }
+                for (int c = 0; c < classes; c++) {
+                    scores[i][c] /= trees;
+                }
+                labels[i] = TrainingLabels.argmax(scores[i]);
+            }
+            return new Predictions(labels, scores);
+        };
+        return new Explained(model, importance, Explained.IMPURITY);
+    }
+
+    /**
+     * The training rows coded by bin, feature-major ({@code code[j][i]}, unsigned), with each feature's thresholds:
+     * a value goes left of threshold {@code b} when it is at most {@code edges[j][b]}, so its bin is the number of
+     * edges below it.
+     */
+    record Bins(byte[][] code, double[][] edges, int n) {
+        static Bins of(double[][] x) {
+            int n = x.length;
+            int p = n == 0 ? 0 : x[0].length;
+            byte[][] code = new byte[p][n];
+            double[][] edges = new double[p][];
+            double[] sorted = new double[n];
+            for (int j = 0; j < p; j++) {
+                for (int i = 0; i < n; i++) {
+                    sorted[i] = x[i][j];
+                }
+                Arrays.sort(sorted);
+                edges[j] = edges(sorted);
+                for (int i = 0; i < n; i++) {
+                    code[j][i] = (byte) bin(edges[j], x[i][j]);
+                }
+            }
+            return new Bins(code, edges, n);
+        }
+
+        /** Midpoints between consecutive distinct values, or at quantile cuts when there are too many. */
+        static double[] edges(double[] sorted) {
+            int n = sorted.length;
+            int distinct = 0;
+            for (int i = 0; i < n; i++) {
+                if (i == 0 || sorted[i] != sorted[i - 1]) {
+                    distinct++;
+                }
+            }
+            double[] out = new double[Math.max(0, Math.min(distinct, MAX_BINS) - 1)];
+            int k = 0;
+            if (distinct <= MAX_BINS) {
+                for (int i = 1; i < n; i++) {
+                    if (sorted[i] != sorted[i - 1]) {
+                        out[k++] = sorted[i - 1] + (sorted[i] - sorted[i - 1]) / 2;
+                    }
+                }
+                return out;
+            }
+            for (int b = 1; b < MAX_BINS; b++) {
+                int cut = (int) ((long) b * n / MAX_BINS);
+                // move the cut to the next change of value so that equal values share a bin
+                while (cut < n && cut > 0 && sorted[cut] == sorted[cut - 1]) {
+                    cut++;
+                }
+                if (cut <= 0 || cut >= n) {
+                    continue;
+                }
+                double e = sorted[cut - 1] + (sorted[cut] - sorted[cut - 1]) / 2;
+                if (k == 0 || e > out[k - 1]) {
+                    out[k++] = e;
+                }
+            }
+            return Arrays.copyOf(out, k);
+        }
+
+        /** The bin of a value: the number of edges strictly below it. */
+        static int bin(double[] edges, double v) {
+            int lo = 0;
+            int hi = edges.length;
+            while (lo < hi) {
+                int mid = (lo + hi) >>> 1;
+                if (edges[mid] < v) {
+                    lo = mid + 1;
+                } else {
+                    hi = mid;
+                }
+            }
+            return lo;
+        }
+
+        int bins(int j) {
+            return edges[j].length + 1;
+        }
+    }
+
+    /**
+     * One grown tree in flat arrays: an inner node has a feature and a threshold and its children; a leaf (feature
+     * -1) keeps its class fractions at {@code left[node] * classes} of {@code leafProbabilities}.
+     */
+    record Tree(int[] feature, double[] threshold, int[] left, int[] right, double[] leafProbabilities, int classes) {
+        void addProbabilities(double[] row, double[] into) {
+            int node = 0;
+            while (feature[node] >= 0) {
+                node = row[feature[node]] <= threshold[node] ? left[node] : right[node];
+            }
+            int at = left[node] * classes;
+            for (int c = 0; c < classes; c++) {
+                into[c] += leafProbabilities[at + c];
+            }
+        }
+
+        int nodes() {
+            return feature.length;
+        }
+    }
+}

@@ -1,0 +1,303 @@
+package org.viewgain.classify;
+
+import java.util.Arrays;
+import java.util.SplittableRandom;
+
+/**
+ * Grows the trees of a {@link BinnedForest} on one set of binned training rows. Its work arrays are allocated once
+ * per fit and reused by every tree and node: the bootstrap counts, the in-bag rows (partitioned in place, each node
+ * owning a contiguous range), the class histogram of one feature, the sort keys of small nodes and the growing tree.
+ */
+final class Grower {
+    private final BinnedForest.Bins bins;
+    private final int[] y;
+    private final int classes;
+    private final int mtry;
+    private final int maxDepth;
+    private final int minLeaf;
+    private final int n;
+    private final int p;
+
+    private final int[] count;
+    private final int[] rows;
+    private final int[] features;
+    private final long[] hist;
+    private final long[] keys;
+    private final long[] parent;
+    private final long[] leftCounts;
+    private final long[] bestLeft;
+
+    // the tree being grown
+    private int[] feature = new int[64];
+    private double[] threshold = new double[64];
+    private int[] left = new int[64];
+    private int[] right = new int[64];
+    private double[] probabilities = new double[64];
+    private int nodes;
+    private int leaves;
+    // stack of nodes to split: node, first row, end row, depth
+    private int[] stack = new int[64];
+
+    Grower(BinnedForest.Bins bins, int[] y, int classes, int mtry, int maxDepth, int minLeaf) {
+        this.bins = bins;
+        this.y = y;
+        this.classes = classes;
+        this.mtry = mtry;
+        this.maxDepth = maxDepth;
+        this.minLeaf = minLeaf;
+        this.n = bins.n();
+        this.p = bins.code().length;
+        count = new int[n];
+        rows = new int[n];
+        features = new int[p];
+        hist = new long[BinnedForest.MAX_BINS * classes];
+        keys = new long[n];
+        parent = new long[classes];
+        leftCounts = new long[classes];
+        bestLeft = new long[classes];
+    }
+
+    /** Grows one tree from its own generator, adding the Gini decrease of each split to {@code importance}. */
+    BinnedForest.Tree grow(SplittableRandom rng, double[] importance) {
+        return grow(rng, importance, true);
+    }
+
+    /** As {@link #grow(SplittableRandom, double[])}; without bootstrap every row counts once (for hand checks). */
+    BinnedForest.Tree grow(SplittableRandom rng, double[] importance, boolean bootstrap) {
+        Arrays.fill(count, bootstrap ? 0 : 1);
+        for (int i = 0; bootstrap && i < n; i++) {
+            count[rng.nextInt(n)]++;
+        }
+        int inBag = 0;
+        for (int i = 0; i < n; i++) {
+            if (count[i] > 0) {
+                rows[inBag++] = i;
+            }
+        }
+        for (int j = 0; j < p; j++) {
+            features[j] = j;
+        }
+        nodes = 0;
+        leaves = 0;
+        int top = 0;
+        newNode();
+        stack = ensure(stack, 4);
+        stack[top++] = 0;
+        stack[top++] = 0;
+        stack[top++] = inBag;
+        stack[top++] = 0;
+        while (top > 0) {
+            int depth = stack[--top];
+            int hi = stack[--top];
+            int lo = stack[--top];
+            int node = stack[--top];
+            long w = classCounts(lo, hi, parent);
+            int split = depth < maxDepth && w >= 2L * minLeaf && !pure(parent) ? split(lo, hi, w, rng) : -1;
+            if (split < 0) {
+                leaf(node, w);
+                continue;
+            }
+            int f = bestFeature;
+            int b = bestBin;
+            importance[f] += bestDecrease;
+            byte[] code = bins.code()[f];
+            // partition [lo, hi) in place: rows with bin <= b first
+            int i = lo;
+            int j = hi - 1;
+            while (i <= j) {
+                if ((code[rows[i]] & 0xff) <= b) {
+                    i++;
+                } else {
+                    int t = rows[i];
+                    rows[i] = rows[j];
+                    rows[j--] = t;
+                }
+            }
+            int l = newNode();
+            int r = newNode();
+            feature[node] = f;
+            threshold[node] = bins.edges()[f][b];
+            left[node] = l;
+            right[node] = r;
+            stack = ensure(stack, top + 8);
+            // right child pushed first so the left one is grown first (node numbering is then depth-first)
+            stack[top++] = r;
+            stack[top++] = i;
+            stack[top++] = hi;
+            stack[top++] = depth + 1;
+            stack[top++] = l;
+            stack[top++] = lo;
+            stack[top++] = i;
+            stack[top++] = depth + 1;
+        }
+        return new BinnedForest.Tree(Arrays.copyOf(feature, nodes), Arrays.copyOf(threshold, nodes),
+                Arrays.copyOf(left, nodes), Arrays.copyOf(right, nodes),
+                Arrays.copyOf(probabilities, leaves * classes), classes);
+    }
+
+    private int bestFeature;
+    private int bestBin;
+    private double bestDecrease;
+
+    /**
+     * Looks for the best split of the rows {@code [lo, hi)} among {@code mtry} features drawn without replacement;
+     * sets {@link #bestFeature}, {@link #bestBin} and {@link #bestDecrease} and returns 0, or -1 when no drawn
+     * feature splits the node into two children of at least {@code minLeaf} rows with a positive decrease.
+     */
+    private int split(int lo, int hi, long w, SplittableRandom rng) {
+        double parentScore = sumSquares(parent) / (double) w;
+        // a split must decrease impurity by more than rounding error (an uninformative split computes to about 0)
+        double best = 1e-12 * w;
+        bestFeature = -1;
+        for (int k = 0; k < mtry; k++) {
+            int r = k + rng.nextInt(p - k);
+            int f = features[r];
+            features[r] = features[k];
+            features[k] = f;
+            int nb = bins.bins(f);
+            if (nb < 2) {
+                continue; // constant in the training rows
+            }
+            byte[] code = bins.code()[f];
+            int m = hi - lo;
+            Arrays.fill(leftCounts, 0);
+            long wl = 0;
+            if (m < nb) {
+                // small node: sort its rows by bin (key = bin, then position) and scan them
+                for (int t = lo; t < hi; t++) {
+                    keys[t - lo] = ((long) (code[rows[t]] & 0xff) << 32) | t;
+                }
+                Arrays.sort(keys, 0, m);
+                for (int s = 0; s < m; s++) {
+                    int t = (int) keys[s];
+                    int row = rows[t];
+                    leftCounts[y[row]] += count[row];
+                    wl += count[row];
+                    int bin = (int) (keys[s] >>> 32);
+                    if (s + 1 < m && (int) (keys[s + 1] >>> 32) == bin) {
+                        continue; // rows of one bin never part
+                    }
+                    if (s + 1 == m) {
+                        break;
+                    }
+                    double d = decrease(wl, w, parentScore);
+                    if (d > best) {
+                        best = d;
+                        keep(f, bin, d);
+                    }
+                }
+            } else {
+                Arrays.fill(hist, 0, nb * classes, 0);
+                for (int t = lo; t < hi; t++) {
+                    int row = rows[t];
+                    hist[(code[row] & 0xff) * classes + y[row]] += count[row];
+                }
+                for (int bin = 0; bin < nb - 1; bin++) {
+                    long inBin = 0;
+                    for (int c = 0; c < classes; c++) {
+                        long h = hist[bin * classes + c];
+                        leftCounts[c] += h;
+                        inBin += h;
+                    }
+                    if (inBin == 0) {
+                        continue; // same partition as the previous bin
+                    }
+                    wl += inBin;
+                    if (wl == w) {
+                        break;
+                    }
+                    double d = decrease(wl, w, parentScore);
+                    if (d > best) {
+                        best = d;
+                        keep(f, bin, d);
+                    }
+                }
+            }
+        }
+        return bestFeature < 0 ? -1 : 0;
+    }
+
+    /**
+     * The Gini impurity decrease of the split whose left child holds {@link #leftCounts} ({@code wl} rows), weighted
+     * by rows: {@code w * gini(parent) - wl * gini(left) - wr * gini(right)} = {@code sum(l^2)/wl + sum(r^2)/wr -
+     * sum(c^2)/w}; 0 when a child is smaller than {@code minLeaf}.
+     */
+    private double decrease(long wl, long w, double parentScore) {
+        long wr = w - wl;
+        if (wl < minLeaf || wr < minLeaf) {
+            return 0;
+        }
+        double sl = 0;
+        double sr = 0;
+        for (int c = 0; c < classes; c++) {
+            long l = leftCounts[c];
+            long r = parent[c] - l;
+            sl += (double) l * l;
+            sr += (double) r * r;
+        }
+        return sl / wl + sr / wr - parentScore;
+    }
+
+    private void keep(int f, int bin, double d) {
+        bestFeature = f;
+        bestBin = bin;
+        bestDecrease = d;
+    }
+
+    private long classCounts(int lo, int hi, long[] into) {
+        Arrays.fill(into, 0);
+        long w = 0;
+        for (int t = lo; t < hi; t++) {
+            int row = rows[t];
+            into[y[row]] += count[row];
+            w += count[row];
+        }
+        return w;
+    }
+
+    private boolean pure(long[] counts) {
+        int nonZero = 0;
+        for (long c : counts) {
+            nonZero += c > 0 ? 1 : 0;
+        }
+        return nonZero <= 1;
+    }
+
+    private static double sumSquares(long[] counts) {
+        double s = 0;
+        for (long c : counts) {
+            s += (double) c * c;
+        }
+        return s;
+    }
+
+    private int newNode() {
+        if (nodes == feature.length) {
+            int cap = nodes * 2;
+            feature = Arrays.copyOf(feature, cap);
+            threshold = Arrays.copyOf(threshold, cap);
+            left = Arrays.copyOf(left, cap);
+            right = Arrays.copyOf(right, cap);
+        }
+        feature[nodes] = -1;
+        return nodes++;
+    }
+
+    private void leaf(int node, long w) {
+        probabilities = ensure(probabilities, (leaves + 1) * classes);
+        for (int c = 0; c < classes; c++) {
+            probabilities[leaves * classes + c] = parent[c] / (double) w;
+        }
+        feature[node] = -1;
+        left[node] = leaves++;
+        right[node] = -1;
+    }
+
+    private static int[] ensure(int[] a, int size) {
+        return a.length >= size ? a : Arrays.copyOf(a, Math.max(size, a.length * 2));
+    }
+
+    private static double[] ensure(double[] a, int size) {
+        return a.length >= size ? a : Arrays.copyOf(a, Math.max(size, a.length * 2));
+    }
+}

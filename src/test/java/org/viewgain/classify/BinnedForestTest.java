@@ -1,0 +1,168 @@
+package org.viewgain.classify;
+
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.util.Arrays;
+import java.util.List;
+import java.util.Map;
+import java.util.SplittableRandom;
+import org.junit.jupiter.api.Test;
+import org.viewgain.spec.Params;
+
+/**
+ * The project's own random forest ({@code random-forest}, Breiman 2001): splits and impurity decreases checked by hand
+ * on tiny tables, binning, reproducibility across seeds and threads, and agreement with Weka's RandomForest (Weka
+ * 3.8.6, the reference implementation in test scope) on iris (Fisher 1936) and breast-cancer-wisconsin (Wolberg, Street
+ * &amp; Mangasarian 1995), both from the UCI repository.
+ */
+class BinnedForestTest {
+    private static final ReferenceTable CANCER = ReferenceTable.load("breast-cancer-wisconsin.csv");
+    private static final ReferenceTable IRIS = ReferenceTable.load("iris.csv");
+    private final ClassifierMethod forest = ClassifierRegistry.create("random-forest", null, null);
+    private final Params small = forest.resolve(Map.of("trees", 60));
+
+    /** One tree grown on every row once (no bootstrap), all features tried, leaves of one row allowed. */
+    private static BinnedForest.Tree tree(double[][] x, int[] y, double[] importance) {
+        Grower g = new Grower(BinnedForest.Bins.of(x), y, 2, x[0].length, 20, 1);
+        return g.grow(new SplittableRandom(1), importance, false);
+    }
+
+    private static double[][] column(double... v) {
+        return Arrays.stream(v).mapToObj(a -> new double[] {a}).toArray(double[][]::new);
+    }
+
+    @Test
+    void givenASeparableColumn_whenGrown_thenOnePureSplitAtTheMidpointWithTheHandComputedDecrease() {
+        double[] importance = new double[1];
+        BinnedForest.Tree t = tree(column(1, 2, 3, 4, 5, 6), new int[] {0, 0, 0, 1, 1, 1}, importance);
+        // root, two leaves; threshold halfway between 3 and 4
+        assertEquals(3, t.nodes());
+        assertEquals(0, t.feature()[0]);
+        assertEquals(3.5, t.threshold()[0], 0.0);
+        // Gini decrease weighted by rows: 6 * (1 - 0.5^2 - 0.5^2) - 0 - 0 = 3 (by hand)
+        assertEquals(3.0, importance[0], 1e-12);
+        double[] left = new double[2];
+        double[] right = new double[2];
+        t.addProbabilities(new double[] {2.0}, left);
+        t.addProbabilities(new double[] {5.0}, right);
+        assertArrayEquals(new double[] {1, 0}, left, 0.0);
+        assertArrayEquals(new double[] {0, 1}, right, 0.0);
+    }
+
+    @Test
+    void givenTiedSplits_whenGrown_thenTheLowerThresholdWinsWithTheHandComputedDecrease() {
+        double[] importance = new double[1];
+        // y = 0 0 1 0 1 1: by hand, sum(l^2)/wl + sum(r^2)/wr - sum(c^2)/w for x <= 1.5 .. 5.5 is
+        // 0.6, 1.5, 0.333, 1.5, 0.6; the tie between 2.5 and 4.5 goes to the first
+        BinnedForest.Tree t = tree(column(1, 2, 3, 4, 5, 6), new int[] {0, 0, 1, 0, 1, 1}, importance);
+        assertEquals(2.5, t.threshold()[0], 0.0);
+        // the root's decrease is 1.5; the right child {1, 0, 1, 1} then splits at 4.5 or 3.5 and so on, each adding
+        // its own positive decrease: the total is the root's plus the children's, at most the root's impurity 3
+        assertTrue(importance[0] > 1.5 && importance[0] <= 3.0 + 1e-12, "importance " + importance[0]);
+    }
+
+    @Test
+    void givenTwoFeatures_whenOnlyTheSecondSeparates_thenTheRootSplitsOnIt() {
+        double[][] x = {{5, 1}, {1, 2}, {4, 3}, {2, 10}, {6, 11}, {3, 12}};
+        int[] y = {0, 0, 0, 1, 1, 1};
+        double[] importance = new double[2];
+        BinnedForest.Tree t = tree(x, y, importance);
+        assertEquals(1, t.feature()[0]);
+        assertEquals(6.5, t.threshold()[0], 0.0);
+        assertEquals(0.0, importance[0], 0.0);
+        assertEquals(3.0, importance[1], 1e-12);
+    }
+
+    @Test
+    void givenManyDistinctValues_whenBinned_thenAtMost255BinsOrderedAndEqualValuesShareABin() {
+        double[] sorted = new double[2_000];
+        for (int i = 0; i < sorted.length; i++) {
+            sorted[i] = Math.floor(i / 3.0); // 667 distinct values, each three times
+        }
+        double[] edges = BinnedForest.Bins.edges(sorted);
+        assertTrue(edges.length <= BinnedForest.MAX_BINS - 1 && edges.length > 200, "edges " + edges.length);
+        for (int b = 1; b < edges.length; b++) {
+            assertTrue(edges[b] > edges[b - 1]);
+        }
+        for (double e : edges) {
+            // every edge lies halfway between two consecutive distinct values, never on a value
+            assertEquals(0.5, e - Math.floor(e), 0.0);
+        }
+        assertEquals(BinnedForest.Bins.bin(edges, 100.0), BinnedForest.Bins.bin(edges, 100.0));
+        // few distinct values: every midpoint is a candidate, as in CART
+        assertArrayEquals(new double[] {1.5, 2.5}, BinnedForest.Bins.edges(new double[] {1, 1, 2, 3, 3}), 0.0);
+    }
+
+    @Test
+    void givenScores_whenPredicting_thenClassFractionsSumToOne() {
+        int[] fold = IRIS.folds(5, 1);
+        Predictions p = Reproducibility.fitAndPredict(forest, small, IRIS, ReferenceTable.positions(fold, 0, false),
+                ReferenceTable.positions(fold, 0, true), 5);
+        for (double[] s : p.scores()) {
+            assertEquals(1.0, Arrays.stream(s).sum(), 1e-12);
+        }
+    }
+
+    @Test
+    void givenSameSeed_whenFittedTwice_thenIdenticalScores_andAnotherSeedDiffers() {
+        int[] fold = CANCER.folds(5, 3);
+        int[] train = ReferenceTable.positions(fold, 0, false);
+        int[] test = ReferenceTable.positions(fold, 0, true);
+        Predictions a = Reproducibility.fitAndPredict(forest, small, CANCER, train, test, 42);
+        Predictions b = Reproducibility.fitAndPredict(forest, small, CANCER, train, test, 42);
+        Predictions c = Reproducibility.fitAndPredict(forest, small, CANCER, train, test, 43);
+        assertArrayEquals(a.labels(), b.labels());
+        assertTrue(Arrays.deepEquals(a.scores(), b.scores()));
+        assertFalse(Arrays.deepEquals(a.scores(), c.scores()));
+    }
+
+    @Test
+    void givenFourThreadsAtOnce_whenFittingTheSameSeed_thenEveryResultEqualsTheSingleThreadOne() throws Exception {
+        int[] fold = CANCER.folds(5, 3);
+        int[] train = ReferenceTable.positions(fold, 1, false);
+        int[] test = ReferenceTable.positions(fold, 1, true);
+        Predictions alone = Reproducibility.fitAndPredict(forest, small, CANCER, train, test, 7);
+        List<Predictions> together = Reproducibility.concurrently(forest, small, CANCER, train, test, 7, 4);
+        for (Predictions p : together) {
+            assertTrue(Arrays.deepEquals(alone.scores(), p.scores()));
+        }
+    }
+
+    @Test
+    void givenFeatureSettings_whenCountingFeaturesPerSplit_thenRoundedWithinOneToP() {
+        assertEquals(5, BinnedForest.featuresPerSplit("sqrt", 30));
+        assertEquals(4, BinnedForest.featuresPerSplit("log2", 30));
+        assertEquals(6, BinnedForest.featuresPerSplit(0.2, 30));
+        assertEquals(1, BinnedForest.featuresPerSplit(0.001, 30));
+        assertEquals(30, BinnedForest.featuresPerSplit(1.0, 30));
+    }
+
+    @Test
+    void givenIrisAndBreastCancer_whenCrossValidatedOnWekasFolds_thenAccuracyWithinWekasRepeatSpread() {
+        // Weka's RandomForest (100 trees, sqrt(p) features per split, leaves of one row, no depth limit) against ours
+        // with the same settings, on five repeats of 5-fold cross-validation with shared folds: our mean accuracy must
+        // lie within Weka's mean +- 2 repeat-to-repeat standard deviations, widened to +- 0.01 when Weka's spread is
+        // tiny (common practice, no source).
+        for (ReferenceTable table : new ReferenceTable[] {IRIS, CANCER}) {
+            int mtry = (int) Math.floor(Math.sqrt(table.rows().p()));
+            ClassifierMethod weka = ClassifierRegistry.create("weka", "weka.classifiers.trees.RandomForest",
+                    "-I 100 -K " + mtry);
+            Params ours = forest.resolve(Map.of("trees", 100, "min-node-size", 1, "max-depth", 1000));
+            double[] a = new double[5];
+            double[] b = new double[5];
+            for (int r = 0; r < 5; r++) {
+                a[r] = Crossval.accuracy(forest, ours, table, 5, 100 + r);
+                b[r] = Crossval.accuracy(weka, weka.resolve(Map.of()), table, 5, 100 + r);
+            }
+            double meanA = Arrays.stream(a).average().orElseThrow();
+            double meanB = Arrays.stream(b).average().orElseThrow();
+            double sdB = Math.sqrt(Arrays.stream(b).map(v -> (v - meanB) * (v - meanB)).sum() / 4);
+            double tolerance = Math.max(2 * sdB, 0.01);
+            assertEquals(meanB, meanA, tolerance, "ours " + Arrays.toString(a) + " weka " + Arrays.toString(b));
+            assertTrue(meanA > 0.9, "accuracy " + meanA);
+        }
+    }
+}
