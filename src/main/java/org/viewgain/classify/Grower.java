@@ -162,8 +162,9 @@ final class Grower {
             int m = hi - lo;
             Arrays.fill(leftCounts, 0);
             long wl = 0;
-            if (m < nb) {
-                // small node: sort its rows by bin (key = bin, then position) and scan them
+            if (4 * m < nb) {
+                // small node, many bins: sort its rows by bin (key = bin, then position) and scan them; otherwise a
+                // histogram over the bins costs less (m + bins x classes against m log m)
                 for (int t = lo; t < hi; t++) {
                     keys[t - lo] = ((long) (code[rows[t]] & 0xff) << 32) | t;
                 }
@@ -226,6 +227,13 @@ final class Grower {
         long wr = w - wl;
         if (wl < minLeaf || wr < minLeaf) {
             return 0;
+        }
+        if (classes == 2) {
+            long l0 = leftCounts[0];
+            long l1 = wl - l0;
+            long r0 = parent[0] - l0;
+            long r1 = wr - r0;
+            return (double) (l0 * l0 + l1 * l1) / wl + (double) (r0 * r0 + r1 * r1) / wr - parentScore;
         }
         double sl = 0;
         double sr = 0;
