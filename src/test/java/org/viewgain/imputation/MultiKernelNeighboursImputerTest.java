@@ -10,7 +10,7 @@ import org.viewgain.cohort.Rows;
 import org.viewgain.spec.Params;
 
 /**
- * SIMLR has no published numeric example (Wang et al. 2017; see REFERENCES.md): these checks use data with a known
+ * SIMLR has no published numeric example (Wang et al. 2017, Nature Methods 14:414-416): these checks use data with a known
  * block structure (3 well-separated Gaussian clusters) and the constraints the paper places on S and w.
  */
 class MultiKernelNeighboursImputerTest {

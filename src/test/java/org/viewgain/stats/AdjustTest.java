@@ -15,7 +15,8 @@ class AdjustTest {
 
     @Test
     void givenBenjaminiHochbergExample_whenAdjusted_thenPublishedAndRecomputedRejections() {
-        // published: BH at q = 0.05 rejects 4; recomputed: Holm and Bonferroni reject 3 (REFERENCES.md)
+        // Benjamini & Hochberg 1995, JRSS-B 57:289-300, worked example: BH at q = 0.05 rejects 4 (published); Holm and
+        // Bonferroni reject 3 (recomputed)
         assertEquals(4, rejected(Adjust.benjaminiHochberg(BH_EXAMPLE), 0.05));
         assertEquals(3, rejected(Adjust.holm(BH_EXAMPLE), 0.05));
         assertEquals(3, rejected(Adjust.bonferroni(BH_EXAMPLE), 0.05));

@@ -14,11 +14,11 @@ class AucTest {
         double[] ratings = ReferenceData.hanleyMcNeilRatings();
         boolean[] abnormal = ReferenceData.hanleyMcNeilAbnormal();
         double auc = Auc.of(ratings, abnormal);
-        // Hanley & McNeil 1982, Table I: published 0.893 (3 decimals); recomputed 0.8931711 (REFERENCES.md)
+        // Hanley & McNeil 1982, Table I: published 0.893 (3 decimals); recomputed 0.8931711
         assertEquals(0.893, auc, 5e-4);
         assertEquals(0.8931711, auc, 1e-7);
         double se = Auc.hanleyMcNeilSe(ratings, abnormal);
-        // Hanley & McNeil 1982, Table I: published SE 0.032; recomputed 0.031990 (REFERENCES.md), tolerance half a
+        // Hanley & McNeil 1982, Table I: published SE 0.032; recomputed 0.031990, tolerance half a
         // last digit
         assertEquals(0.032, se, 5e-4);
         assertEquals(0.031990, se, 5e-7);
@@ -40,7 +40,8 @@ class AucTest {
     void givenAsahMarkers_whenAuc_thenMatchesPRoc() {
         List<CSVRecord> rows = ReferenceData.read("asah.csv");
         boolean[] poor = ReferenceData.asahPoor(rows);
-        // pROC 1.18.0 on aSAH, outcome Poor positive (REFERENCES.md); tolerance 1e-12, both are exact rationals
+        // R package pROC 1.18.0 (Robin et al. 2011) on aSAH (Turck et al. 2010), outcome Poor positive; tolerance
+        // 1e-12, both are exact rationals
         assertEquals(0.823678861788618, Auc.of(ReferenceData.column(rows, "wfns"), poor), 1e-12);
         assertEquals(0.731368563685637, Auc.of(ReferenceData.column(rows, "s100b"), poor), 1e-12);
         assertEquals(0.611957994579946, Auc.of(ReferenceData.column(rows, "ndka"), poor), 1e-12);

@@ -12,8 +12,8 @@ class CorrectedTTestTest {
 
     @Test
     void givenTenFoldDifferences_whenCorrectedTTest_thenMatchesHandComputation() {
-        // No published numeric example exists (REFERENCES.md); hand computation of Nadeau & Bengio 2003 as given
-        // by Bouckaert & Frank 2004:
+        // No published numeric example was found; hand computation of Nadeau & Bengio 2003 (Machine Learning
+        // 52:239-281) as given by Bouckaert & Frank 2004 (PAKDD, LNCS 3056:3-12):
         //   mean = 0.19 / 10 = 0.019
         //   squared deviations (x1e-6): 81, 121, 1521, 441, 1, 361, 961, 81, 121, 1 -> sum 3690e-6
         //   s^2 = 3690e-6 / 9 = 4.1e-4

@@ -14,10 +14,11 @@ class DeLongTest {
     @Test
     void givenHanleyMcNeilRatings_whenDeLong_thenRecomputedSeAndStataInterval() {
         DeLong.Estimate e = DeLong.estimate(ReferenceData.hanleyMcNeilRatings(), ReferenceData.hanleyMcNeilAbnormal());
-        // REFERENCES.md: DeLong SE recomputed 0.0307244 (Stata prints 0.0307); tolerance half a last digit
+        // Hanley & McNeil 1982, Radiology 143:29-36, Table I data: DeLong (DeLong, DeLong & Clarke-Pearson 1988) SE
+        // recomputed 0.0307244 (Stata prints 0.0307); tolerance half a last digit
         assertEquals(0.0307244, e.se(), 5e-8);
         Interval ci = e.interval(0.95);
-        // Stata's 95% CI 0.83295-0.95339 (REFERENCES.md), tolerance half a last digit
+        // Stata's 95% CI 0.83295-0.95339 on the same data, tolerance half a last digit
         assertEquals(0.83295, ci.low(), 5e-6);
         assertEquals(0.95339, ci.high(), 5e-6);
     }
@@ -42,7 +43,8 @@ class DeLongTest {
         double[] wfns = ReferenceData.column(rows, "wfns");
         double[] s100b = ReferenceData.column(rows, "s100b");
         double[] ndka = ReferenceData.column(rows, "ndka");
-        // pROC 1.18.0 roc.test(method = "delong", paired) on aSAH (REFERENCES.md)
+        // R package pROC 1.18.0 (Robin et al. 2011, BMC Bioinformatics 12:77) roc.test(method = "delong", paired) on
+        // its aSAH data set (Turck et al. 2010, Intensive Care Med 36:107-115)
         DeLong.Comparison ws = DeLong.compare(wfns, s100b, poor);
         assertEquals(2.20898359144091, ws.z(), PROC_TOL);
         assertEquals(0.0271757822291882, ws.p(), PROC_TOL);

@@ -13,7 +13,8 @@ import org.apache.commons.math3.stat.inference.OneWayAnova;
 import org.junit.jupiter.api.Test;
 
 class PermanovaTest {
-    // scikit-bio PERMANOVA test suite, verified there against R vegan (REFERENCES.md); groups A, A, B, B
+    // Anderson 2001, Austral Ecology 26:32-46 (method); matrices and F from the scikit-bio PERMANOVA test suite,
+    // verified there against R vegan; groups A, A, B, B
     private static final double[][] D_TIES = {{0, 1, 1, 4}, {1, 0, 3, 2}, {1, 3, 0, 3}, {4, 2, 3, 0}};
     private static final double[][] D_NO_TIES = {{0, 1, 5, 4}, {1, 0, 3, 2}, {5, 3, 0, 3}, {4, 2, 3, 0}};
     private static final int[] AABB = {0, 0, 1, 1};
@@ -27,7 +28,7 @@ class PermanovaTest {
 
     @Test
     void givenSkbioMatrices_whenExact_thenRecomputedEnumerationP() {
-        // REFERENCES.md: exact full-enumeration p 0.6667 (4 of 6 arrangements) and 0.3333 (2 of 6), recomputed
+        // exact full-enumeration p 0.6667 (4 of 6 arrangements) and 0.3333 (2 of 6), recomputed from Anderson 2001
         Permanova.Result ties = Permanova.exact(D_TIES, new int[] {7, 7, 3, 3});
         assertEquals(4.0 / 6, ties.p(), 1e-12);
         assertEquals(6, ties.permutations());
