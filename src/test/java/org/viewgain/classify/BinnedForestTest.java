@@ -2,11 +2,9 @@ package org.viewgain.classify;
 
 import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
-import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.Arrays;
-import java.util.List;
 import java.util.Map;
 import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
@@ -14,7 +12,7 @@ import org.viewgain.spec.Params;
 
 /**
  * The project's own random forest ({@code random-forest}, Breiman 2001): splits and impurity decreases checked by hand
- * on tiny tables, binning, reproducibility across seeds and threads, and agreement with Weka's RandomForest (Weka
+ * on tiny tables, binning (reproducibility: ForestContractTest), and agreement with Weka's RandomForest (Weka
  * 3.8.6, the reference implementation in test scope) on iris (Fisher 1936) and breast-cancer-wisconsin (Wolberg, Street
  * &amp; Mangasarian 1995), both from the UCI repository.
  */
@@ -22,7 +20,6 @@ class BinnedForestTest {
     private static final ReferenceTable CANCER = ReferenceTable.load("breast-cancer-wisconsin.csv");
     private static final ReferenceTable IRIS = ReferenceTable.load("iris.csv");
     private final ClassifierMethod forest = ClassifierRegistry.create("random-forest", null, null);
-    private final Params small = forest.resolve(Map.of("trees", 60));
 
     /** One tree grown on every row once (no bootstrap), all features tried, leaves of one row allowed. */
     private static BinnedForest.Tree tree(double[][] x, int[] y, double[] importance) {
@@ -94,41 +91,6 @@ class BinnedForestTest {
         assertEquals(BinnedForest.Bins.bin(edges, 100.0), BinnedForest.Bins.bin(edges, 100.0));
         // few distinct values: every midpoint is a candidate, as in CART
         assertArrayEquals(new double[] {1.5, 2.5}, BinnedForest.Bins.edges(new double[] {1, 1, 2, 3, 3}), 0.0);
-    }
-
-    @Test
-    void givenScores_whenPredicting_thenClassFractionsSumToOne() {
-        int[] fold = IRIS.folds(5, 1);
-        Predictions p = Reproducibility.fitAndPredict(forest, small, IRIS, ReferenceTable.positions(fold, 0, false),
-                ReferenceTable.positions(fold, 0, true), 5);
-        for (double[] s : p.scores()) {
-            assertEquals(1.0, Arrays.stream(s).sum(), 1e-12);
-        }
-    }
-
-    @Test
-    void givenSameSeed_whenFittedTwice_thenIdenticalScores_andAnotherSeedDiffers() {
-        int[] fold = CANCER.folds(5, 3);
-        int[] train = ReferenceTable.positions(fold, 0, false);
-        int[] test = ReferenceTable.positions(fold, 0, true);
-        Predictions a = Reproducibility.fitAndPredict(forest, small, CANCER, train, test, 42);
-        Predictions b = Reproducibility.fitAndPredict(forest, small, CANCER, train, test, 42);
-        Predictions c = Reproducibility.fitAndPredict(forest, small, CANCER, train, test, 43);
-        assertArrayEquals(a.labels(), b.labels());
-        assertTrue(Arrays.deepEquals(a.scores(), b.scores()));
-        assertFalse(Arrays.deepEquals(a.scores(), c.scores()));
-    }
-
-    @Test
-    void givenFourThreadsAtOnce_whenFittingTheSameSeed_thenEveryResultEqualsTheSingleThreadOne() throws Exception {
-        int[] fold = CANCER.folds(5, 3);
-        int[] train = ReferenceTable.positions(fold, 1, false);
-        int[] test = ReferenceTable.positions(fold, 1, true);
-        Predictions alone = Reproducibility.fitAndPredict(forest, small, CANCER, train, test, 7);
-        List<Predictions> together = Reproducibility.concurrently(forest, small, CANCER, train, test, 7, 4);
-        for (Predictions p : together) {
-            assertTrue(Arrays.deepEquals(alone.scores(), p.scores()));
-        }
     }
 
     @Test
