@@ -114,6 +114,19 @@ public final class SpecLoader {
         String site = s.text("site", null, false);
         List<String> covariates = s.textList("covariates", List.of());
         double duplicates = s.number("duplicate-threshold", Specs.Cohort.DEFAULT_DUPLICATE_THRESHOLD, 0, 1);
+        // a column read as site, covariate or id must not be the group: ComBat, adjustment and the fold plan would
+        // then read the test subjects' labels
+        if (group != null && group.equals(id)) {
+            s.problems.add(s.key("id"), "'" + id + "' is also cohort.group; the id column must differ from the group");
+        }
+        if (group != null && group.equals(site)) {
+            s.problems.add(s.key("site"), "'" + site + "' is also cohort.group; a site column equal to the group would"
+                    + " let harmonization and the folds read the test subjects' labels");
+        }
+        if (group != null && covariates.contains(group)) {
+            s.problems.add(s.key("covariates"), "'" + group + "' is cohort.group; the group cannot be a covariate"
+                    + " (adjustment would read the test subjects' labels)");
+        }
         return new Specs.Cohort(subjects == null ? null : base.resolve(subjects).normalize(), id, group, groups,
                 positive, site, covariates, duplicates);
     }

@@ -74,6 +74,19 @@ class SpecLoaderTest {
     }
 
     @Test
+    void givenSiteIdOrCovariateEqualToTheGroupColumn_whenParsed_thenRefusedNamingTheKey() {
+        String cohort = "  positive: patient\n";
+        BadInputException site = bad(GOOD.replace(cohort, cohort + "  site: group\n"));
+        assertTrue(site.getMessage().contains("cohort.site: 'group' is also cohort.group"), site.getMessage());
+        BadInputException id = bad(GOOD.replace(cohort, cohort + "  id: diagnosis\n  group: diagnosis\n"));
+        assertTrue(id.getMessage().contains("cohort.id: 'diagnosis' is also cohort.group"), id.getMessage());
+        BadInputException cov = bad(GOOD.replace(cohort, cohort + "  covariates: [age, group]\n"));
+        assertTrue(cov.getMessage().contains("cohort.covariates: 'group' is cohort.group"), cov.getMessage());
+        // a different column is fine
+        SpecLoader.parse(GOOD.replace(cohort, cohort + "  site: scanner\n  covariates: [age]\n"), FILE);
+    }
+
+    @Test
     void givenFeatureSetNeedingTargetWithoutTargetView_whenParsed_thenError() {
         String text = GOOD.replace("  target: { table: b.csv, missing: allowed }\n", "");
         BadInputException e = bad(text);
