@@ -23,7 +23,7 @@ import org.viewgain.spec.SpecLoader;
  * 3 inner folds, 19 permutations within sites, balanced accuracy.
  *
  * <p>Usage: {@code bench/test-main.sh 3g org.viewgain.engine.NullCalibrationBench COHORTS [FIRST_SEED [PERMS
- * [SITES [MISSING_BY_GROUP]]]]}; SITES 0 alternates 1 and 2; MISSING_BY_GROUP is the extra missing rate of patients
+ * [SITES [MISSING_BY_GROUP [tuned]]]]]}; SITES 0 alternates 1 and 2; {@code tuned} tunes the classifier; MISSING_BY_GROUP is the extra missing rate of patients
  * (targets missing not at random, which must not matter to a test that permutes within each pipeline's population).
  */
 public final class NullCalibrationBench {
@@ -39,13 +39,16 @@ public final class NullCalibrationBench {
         int perms = args.length > 2 ? Integer.parseInt(args[2]) : 19;
         int sites = args.length > 3 ? Integer.parseInt(args[3]) : 0;
         double missingByGroup = args.length > 4 ? Double.parseDouble(args[4]) : 0.0;
+        // "tuned": logistic regression tuned over lambda in the inner folds, which then exercises the classifier's
+        // inner folds and the nested imputations under permutation too
+        boolean tuned = args.length > 5 && args[5].equals("tuned");
         String body = """
                 imputers: [ { name: ridge, method: ridge, fixed: { alpha: 10 } } ]
                 feature-sets: [source, source+imputed, target]
-                classifiers: [ { name: lr, method: logistic, fixed: { lambda: 1.0 } } ]
+                classifiers: [ { name: lr, method: logistic, %s } ]
                 validation: { outer: { folds: 5, repeats: 2 }, inner: { folds: 3 }, tune-by: balanced-accuracy }
                 significance: { permutations: %d, metric: balanced-accuracy, bootstrap: 0, compare: [] }
-                """.formatted(perms);
+                """.formatted(tuned ? "grid: { lambda: [0.1, 10] }" : "fixed: { lambda: 1.0 }", perms);
         Path root = Files.createTempDirectory("viewgain-null");
         int workers = Runtime.getRuntime().availableProcessors();
         ExecutorService pool = Executors.newFixedThreadPool(workers);
@@ -80,8 +83,8 @@ public final class NullCalibrationBench {
         pool.shutdown();
         double secs = (System.nanoTime() - start) / 1e9;
         System.out.printf(Locale.ROOT, "%d null cohorts, %d permutations, sites %s, extra missing in patients %.2f,"
-                + " seeds %d..%d, %.0f s%n", cohorts, perms, sites == 0 ? "1 and 2" : sites, missingByGroup, first,
-                first + cohorts - 1, secs);
+                + " logistic %s, seeds %d..%d, %.0f s%n", cohorts, perms, sites == 0 ? "1 and 2" : sites,
+                missingByGroup, tuned ? "tuned over lambda 0.1, 10" : "lambda 1", first, first + cohorts - 1, secs);
         BinomialDistribution b = new BinomialDistribution(cohorts, 0.05);
         int lo = b.inverseCumulativeProbability(0.005);
         int hi = b.inverseCumulativeProbability(0.995);
