@@ -24,10 +24,11 @@ final class FlowTable {
             }
             return Html.table("flowtable", HEAD, rows);
         }
-        StringBuilder b = new StringBuilder(Html.notComputed("the cohort flow table", "cohort_flow.csv"));
+        // no command writes cohort_flow.csv today: the table is derived from predictions.csv, which says so below
         if (d.predictions == null) {
-            return b.toString();
+            return Html.notComputed("the cohort flow table", "predictions.csv");
         }
+        StringBuilder b = new StringBuilder();
         String firstRepeat = d.predictions.rows().isEmpty() ? "1" : d.predictions.rows().get(0).s("repeat");
         Map<String, Map<String, Set<String>>> in = new LinkedHashMap<>();
         for (CsvRows.Row r : d.predictions.rows()) {
