@@ -6,7 +6,7 @@ import java.util.SplittableRandom;
 /**
  * Grows the trees of a {@link BinnedForest} on one set of binned training rows. Its work arrays are allocated once
  * per fit and reused by every tree and node: the bootstrap counts, the in-bag rows (partitioned in place, each node
- * owning a contiguous range), the class histogram of one feature, the sort keys of small nodes and the growing tree.
+ * owning a contiguous range), the class histogram of one feature with its bitmap of occupied bins, and the growing tree.
  */
 final class Grower {
     private final BinnedForest.Bins bins;
@@ -22,7 +22,7 @@ final class Grower {
     private final int[] rows;
     private final int[] features;
     private final long[] hist;
-    private final long[] keys;
+    private final long[] occupied = new long[(BinnedForest.MAX_BINS + 63) / 64];
     private final long[] parent;
     private final long[] leftCounts;
     private final long[] bestLeft;
@@ -51,7 +51,6 @@ final class Grower {
         rows = new int[n];
         features = new int[p];
         hist = new long[BinnedForest.MAX_BINS * classes];
-        keys = new long[n];
         parent = new long[classes];
         leftCounts = new long[classes];
         bestLeft = new long[classes];
@@ -159,53 +158,34 @@ final class Grower {
                 continue; // constant in the training rows
             }
             byte[] code = bins.code()[f];
-            int m = hi - lo;
+            // a class histogram over the bins the node's rows occupy, with a bitmap of those bins, so that the scan
+            // visits occupied bins only (at most as many as rows, in bin order) and clears them as it goes; the
+            // histogram and the bitmap are all zeros between uses
+            for (int t = lo; t < hi; t++) {
+                int row = rows[t];
+                int bin = code[row] & 0xff;
+                hist[bin * classes + y[row]] += count[row];
+                occupied[bin >>> 6] |= 1L << bin;
+            }
             Arrays.fill(leftCounts, 0);
             long wl = 0;
-            if (4 * m < nb) {
-                // small node, many bins: sort its rows by bin (key = bin, then position) and scan them; otherwise a
-                // histogram over the bins costs less (m + bins x classes against m log m)
-                for (int t = lo; t < hi; t++) {
-                    keys[t - lo] = ((long) (code[rows[t]] & 0xff) << 32) | t;
-                }
-                Arrays.sort(keys, 0, m);
-                for (int s = 0; s < m; s++) {
-                    int t = (int) keys[s];
-                    int row = rows[t];
-                    leftCounts[y[row]] += count[row];
-                    wl += count[row];
-                    int bin = (int) (keys[s] >>> 32);
-                    if (s + 1 < m && (int) (keys[s + 1] >>> 32) == bin) {
-                        continue; // rows of one bin never part
-                    }
-                    if (s + 1 == m) {
-                        break;
-                    }
-                    double d = decrease(wl, w, parentScore);
-                    if (d > best) {
-                        best = d;
-                        keep(f, bin, d);
-                    }
-                }
-            } else {
-                Arrays.fill(hist, 0, nb * classes, 0);
-                for (int t = lo; t < hi; t++) {
-                    int row = rows[t];
-                    hist[(code[row] & 0xff) * classes + y[row]] += count[row];
-                }
-                for (int bin = 0; bin < nb - 1; bin++) {
-                    long inBin = 0;
+            for (int word = 0; word < occupied.length; word++) {
+                long bits = occupied[word];
+                occupied[word] = 0;
+                while (bits != 0) {
+                    int bin = (word << 6) | Long.numberOfTrailingZeros(bits);
+                    bits &= bits - 1;
                     for (int c = 0; c < classes; c++) {
                         long h = hist[bin * classes + c];
+                        hist[bin * classes + c] = 0;
                         leftCounts[c] += h;
-                        inBin += h;
+                        wl += h;
                     }
-                    if (inBin == 0) {
-                        continue; // same partition as the previous bin
-                    }
-                    wl += inBin;
                     if (wl == w) {
-                        break;
+                        continue; // the last occupied bin: no rows would go right
+                    }
+                    if (classes == 2 && !mayBeat(wl, w, parentScore, best)) {
+                        continue;
                     }
                     double d = decrease(wl, w, parentScore);
                     if (d > best) {
@@ -244,6 +224,26 @@ final class Grower {
             sr += (double) r * r;
         }
         return sl / wl + sr / wr - parentScore;
+    }
+
+    /**
+     * A division-free screen for two classes: false only when the split with {@code wl} rows on the left certainly
+     * does not decrease impurity by more than {@code best} ({@code sum(l^2) wr + sum(r^2) wl} against {@code (best +
+     * parentScore) wl wr}, with a relative margin far above rounding error), so that {@link #decrease} and its two
+     * divisions run only for candidates that may win, and the chosen split is the one the plain scan would choose.
+     */
+    private boolean mayBeat(long wl, long w, double parentScore, double best) {
+        long wr = w - wl;
+        if (wl < minLeaf || wr < minLeaf) {
+            return false;
+        }
+        long l0 = leftCounts[0];
+        long l1 = wl - l0;
+        long r0 = parent[0] - l0;
+        long r1 = wr - r0;
+        double lhs = (double) (l0 * l0 + l1 * l1) * wr + (double) (r0 * r0 + r1 * r1) * wl;
+        double rhs = (best + parentScore) * wl * wr;
+        return lhs > rhs * (1 - 1e-9);
     }
 
     private void keep(int f, int bin, double d) {
