@@ -1,5 +1,6 @@
 package org.viewgain.classify;
 
+import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.SplittableRandom;
@@ -22,6 +23,8 @@ import org.viewgain.spec.Params;
  * in CART; a feature with more gets {@value #MAX_BINS} quantile bins, and thresholds are the midpoints at the bin
  * edges (the histogram approach of gradient-boosting libraries). Rows are coded once as bytes, feature-major, so
  * finding a node's best split reads one contiguous array per feature and allocates nothing.
+ *
+ * <p>The bins are label-free: the points of a grid fitted together ({@link #fitGrid}) share one binning.
  *
  * <p>Every tree has its own seed derived from {@link FitContext#seed()}; trees are grown in order on the calling
  * thread (the engine runs fits in parallel), so a fit is the same on any number of threads. Importance: the Gini
@@ -67,15 +70,44 @@ public final class BinnedForest implements ClassifierMethod {
         return (int) Math.max(1, Math.min(p, m));
     }
 
+    /** Bins the training rows (a seam for tests that count how often it happens). */
+    interface Binner {
+        Bins bin(double[][] x);
+    }
+
+    private final Binner binner;
+
+    public BinnedForest() {
+        this(Bins::of);
+    }
+
+    BinnedForest(Binner binner) {
+        this.binner = binner;
+    }
+
     @Override
     public Model fit(FitContext ctx, Rows x, int[] y, int classes, Params params) {
+        return fitGrid(List.of(ctx), x, y, classes, List.of(params)).get(0);
+    }
+
+    /** Bins the rows once (label-free) and grows one forest per grid point on them. */
+    @Override
+    public List<Model> fitGrid(List<FitContext> contexts, Rows x, int[] y, int classes, List<Params> grid) {
         TrainingLabels.check(method(), x, y, classes);
-        Bins bins = Bins.of(x.x());
+        Bins bins = binner.bin(x.x());
+        List<Model> out = new ArrayList<>(grid.size());
+        for (int g = 0; g < grid.size(); g++) {
+            out.add(grow(contexts.get(g), bins, y, classes, grid.get(g), x.p()));
+        }
+        return out;
+    }
+
+    private static Model grow(FitContext ctx, Bins bins, int[] y, int classes, Params params, int p) {
         int trees = params.getInt("trees");
-        Grower grower = new Grower(bins, y, classes, featuresPerSplit(params.get("features-per-split"), x.p()),
+        Grower grower = new Grower(bins, y, classes, featuresPerSplit(params.get("features-per-split"), p),
                 params.getInt("max-depth"), params.getInt("min-node-size"));
         Tree[] forest = new Tree[trees];
-        double[] importance = new double[x.p()];
+        double[] importance = new double[p];
         for (int t = 0; t < trees; t++) {
             forest[t] = grower.grow(new SplittableRandom(Seeds.derive(ctx.seed(), "forest-tree", t)), importance);
         }

@@ -43,6 +43,23 @@ public interface ClassifierMethod {
     Model fit(FitContext ctx, Rows x, int[] y, int classes, Params params);
 
     /**
+     * Fits one model per grid point on the same training rows and labels, in grid order, each point with its own
+     * context (and so its own seed); the same models as calling {@link #fit} once per point. A method whose
+     * label-free preparation (binned features, a kernel matrix) depends only on the rows and a few parameters
+     * overrides it to do that work once for all points that share it. The rows are only read.
+     */
+    default List<Model> fitGrid(List<FitContext> contexts, Rows x, int[] y, int classes, List<Params> grid) {
+        if (contexts.size() != grid.size()) {
+            throw new IllegalArgumentException("contexts " + contexts.size() + " != grid points " + grid.size());
+        }
+        List<Model> out = new java.util.ArrayList<>(grid.size());
+        for (int g = 0; g < grid.size(); g++) {
+            out.add(fit(contexts.get(g), x, y, classes, grid.get(g)));
+        }
+        return out;
+    }
+
+    /**
      * Like {@link #fit}, for rows the caller will never read again (the final fit of a unit, on rows built for it).
      * A method that copies the rows into its own format may release each row as it copies it, by setting
      * {@code x.x()[i]} to null, so that the two copies do not live side by side for the whole fit. The default

@@ -16,7 +16,8 @@ public final class ClassifierRegistry {
         FACTORIES.put("random-forest", BinnedForest::new);
         FACTORIES.put("smile-random-forest", SmileForest::new);
         FACTORIES.put("svm-linear", LinearSvm::new);
-        FACTORIES.put("svm-rbf", SmileSvm::new);
+        FACTORIES.put("svm-rbf", KernelSvm::new);
+        FACTORIES.put("smile-svm-rbf", SmileSvm::new);
         FACTORIES.put("logistic", SmileLogistic::new);
         FACTORIES.put("lda", SmileLda::new);
         FACTORIES.put("knn", SmileKnn::new);

@@ -13,11 +13,12 @@ import smile.math.kernel.GaussianKernel;
 import smile.math.kernel.MercerKernel;
 
 /**
- * {@code svm-rbf}: a support vector machine (Cortes &amp; Vapnik 1995, Machine Learning 20:273-297) with the RBF
+ * {@code smile-svm-rbf}: a support vector machine (Cortes &amp; Vapnik 1995, Machine Learning 20:273-297) with the RBF
  * kernel, trained by Smile's LASVM solver (Bordes et al. 2005, JMLR 6:1579-1619). Two classes: one machine with
  * class 1 as the positive side; more classes: one machine per class against the rest, fitted one after another.
  * Scores are decision values (not probabilities): for two classes {@code scores[i][1]} is the decision value and
- * {@code scores[i][0]} its negative, which orders subjects for AUC. ({@code svm-linear} is {@link LinearSvm}.)
+ * {@code scores[i][0]} its negative, which orders subjects for AUC. ({@code svm-linear} is {@link LinearSvm}; the
+ * default {@code svm-rbf}, solved exactly on a shared kernel matrix, is {@link KernelSvm}.)
  *
  * <p>Kernel {@code exp(-gamma * |x - x'|^2)}; {@code gamma: scale} means {@code 1 / (p * var)} with {@code var} the
  * variance of all training values (population form), as scikit-learn's default. LASVM visits the rows in a random
@@ -27,7 +28,7 @@ public final class SmileSvm implements ClassifierMethod {
 
     @Override
     public String method() {
-        return "svm-rbf";
+        return "smile-svm-rbf";
     }
 
     @Override

@@ -192,30 +192,40 @@ final class ClassifierStage {
             FitChain.Steps up = fitted.steps();
             Rows fitUp = fitted.transformed();
             Rows valUp = up.apply(valRows);
-            Transform.Fitted sel = null;
-            int selFor = Integer.MIN_VALUE;
-            Rows fitIn = fitUp;
-            Rows valIn = valUp;
-            for (int g = 0; g < points.size(); g++) {
-                Point point = points.get(g);
-                if (point.selection() != selFor) {
-                    selFor = point.selection();
-                    sel = FitChain.selection(ex, prepCtx, fitUp, yFit, selFor);
-                    fitIn = sel == null ? fitUp : sel.apply(fitUp);
-                    valIn = sel == null ? valUp : sel.apply(valUp);
+            // the grid points of one selection setting see the same rows: fitted together, so that a method's
+            // label-free work on those rows (bins, a kernel matrix) is done once for all of them
+            for (int from = 0; from < points.size(); ) {
+                int selection = points.get(from).selection();
+                int to = from;
+                while (to < points.size() && points.get(to).selection() == selection) {
+                    to++;
                 }
-                FitContext ctx = base.at(j, FitContext.Role.TUNE, Seeds.derive(seed, point.seedParts(ex, "classify",
-                        base.permutation(), base.repeat(), base.outerFold(), j, p.label())));
-                ClassifierMethod.Model trained = cl.method().fit(ctx, fitIn, yFit, classes, point.params());
-                if (!trained.converged()) {
-                    unconverged[0]++;
+                Transform.Fitted sel = FitChain.selection(ex, prepCtx, fitUp, yFit, selection);
+                Rows fitIn = sel == null ? fitUp : sel.apply(fitUp);
+                Rows valIn = sel == null ? valUp : sel.apply(valUp);
+                List<FitContext> contexts = new ArrayList<>(to - from);
+                List<Params> grid = new ArrayList<>(to - from);
+                for (int g = from; g < to; g++) {
+                    contexts.add(base.at(j, FitContext.Role.TUNE, Seeds.derive(seed, points.get(g).seedParts(ex,
+                            "classify", base.permutation(), base.repeat(), base.outerFold(), j, p.label()))));
+                    grid.add(points.get(g).params());
                 }
-                Predictions pr = trained.predict(valIn);
-                for (int t = 0; t < vp.length; t++) {
-                    pred[g][vp[t]] = pr.labels()[t];
-                    scores[g][vp[t]] = pr.hasScores() ? pr.scores()[t] : null;
+                List<ClassifierMethod.Model> trained =
+                        new ArrayList<>(cl.method().fitGrid(contexts, fitIn, yFit, classes, grid));
+                for (int g = from; g < to; g++) {
+                    ClassifierMethod.Model model = trained.get(g - from);
+                    trained.set(g - from, null); // one model at a time after this
+                    if (!model.converged()) {
+                        unconverged[0]++;
+                    }
+                    Predictions pr = model.predict(valIn);
+                    for (int t = 0; t < vp.length; t++) {
+                        pred[g][vp[t]] = pr.labels()[t];
+                        scores[g][vp[t]] = pr.hasScores() ? pr.scores()[t] : null;
+                    }
+                    haveScores[g] &= pr.hasScores();
                 }
-                haveScores[g] &= pr.hasScores();
+                from = to;
             }
         }
         String tuneBy = ex.spec().validation().tuneBy().replace('-', '_');

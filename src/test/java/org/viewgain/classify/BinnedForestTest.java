@@ -127,4 +127,30 @@ class BinnedForestTest {
             assertTrue(meanA > 0.9, "accuracy " + meanA);
         }
     }
+
+    @Test
+    void givenAGrid_whenFittedTogether_thenTheRowsAreBinnedOnceAndTheModelsEqualSeparateFits() {
+        ReferenceTable cancer = ReferenceTable.load("breast-cancer-wisconsin.csv");
+        int[] binned = {0};
+        BinnedForest counting = new BinnedForest(x -> {
+            binned[0]++;
+            return BinnedForest.Bins.of(x);
+        });
+        java.util.List<org.viewgain.spec.Params> grid = new java.util.ArrayList<>();
+        java.util.List<org.viewgain.folds.FitContext> contexts = new java.util.ArrayList<>();
+        for (Object m : java.util.List.of("sqrt", "log2", 0.5)) {
+            grid.add(counting.resolve(java.util.Map.of("trees", 20, "features-per-split", m)));
+            contexts.add(new org.viewgain.folds.FitContext(0, 0, 0, 1, org.viewgain.folds.FitContext.Role.TUNE,
+                    17L * grid.size()));
+        }
+        java.util.List<ClassifierMethod.Model> together = counting.fitGrid(contexts, cancer.rows(), cancer.y(), 2,
+                grid);
+        assertEquals(1, binned[0], "one binning for three grid points");
+        for (int g = 0; g < grid.size(); g++) {
+            Predictions a = together.get(g).predict(cancer.rows());
+            Predictions b = new BinnedForest().fit(contexts.get(g), cancer.rows(), cancer.y(), 2, grid.get(g))
+                    .predict(cancer.rows());
+            assertTrue(java.util.Arrays.deepEquals(a.scores(), b.scores()), "grid point " + g);
+        }
+    }
 }
