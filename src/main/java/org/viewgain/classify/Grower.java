@@ -22,6 +22,10 @@ final class Grower {
     private final int[] rows;
     private final int[] features;
     private final long[] hist;
+    // two-class work arrays: per-bin counts and the node's rows' counts in row order, each packed as total count
+    // (low 32 bits) and class-1 count (high 32 bits)
+    private final long[] binCounts = new long[BinnedForest.MAX_BINS];
+    private final long[] nodeCounts;
     private final long[] occupied = new long[(BinnedForest.MAX_BINS + 63) / 64];
     private final long[] parent;
     private final long[] leftCounts;
@@ -51,6 +55,7 @@ final class Grower {
         rows = new int[n];
         features = new int[p];
         hist = new long[BinnedForest.MAX_BINS * classes];
+        nodeCounts = new long[n];
         parent = new long[classes];
         leftCounts = new long[classes];
         bestLeft = new long[classes];
@@ -144,6 +149,9 @@ final class Grower {
      * feature splits the node into two children of at least {@code minLeaf} rows with a positive decrease.
      */
     private int split(int lo, int hi, long w, SplittableRandom rng) {
+        if (classes == 2) {
+            return splitTwoClasses(lo, hi, w, rng);
+        }
         double parentScore = sumSquares(parent) / (double) w;
         // a split must decrease impurity by more than rounding error (an uninformative split computes to about 0)
         double best = 1e-12 * w;
@@ -224,6 +232,73 @@ final class Grower {
             sr += (double) r * r;
         }
         return sl / wl + sr / wr - parentScore;
+    }
+
+    /**
+     * {@link #split} for two classes, the common case, with the same candidates, order and arithmetic: the node's
+     * bootstrap counts are gathered once into a contiguous array (total and class-1 count per row, packed in one long)
+     * and each drawn feature's histogram is one packed array, so the inner loop reads one byte per row at random,
+     * the rest in order, and updates one histogram cell per row.
+     */
+    private int splitTwoClasses(int lo, int hi, long w, SplittableRandom rng) {
+        double parentScore = sumSquares(parent) / (double) w;
+        double best = 1e-12 * w;
+        bestFeature = -1;
+        int m = hi - lo;
+        for (int t = 0; t < m; t++) {
+            int row = rows[lo + t];
+            // total count in the low 32 bits, class-1 count in the high 32: one add updates both
+            nodeCounts[t] = count[row] | (y[row] == 1 ? (long) count[row] << 32 : 0L);
+        }
+        long p0 = parent[0];
+        for (int k = 0; k < mtry; k++) {
+            int r = k + rng.nextInt(p - k);
+            int f = features[r];
+            features[r] = features[k];
+            features[k] = f;
+            if (bins.bins(f) < 2) {
+                continue; // constant in the training rows
+            }
+            byte[] code = bins.code()[f];
+            for (int t = 0; t < m; t++) {
+                int bin = code[rows[lo + t]] & 0xff;
+                binCounts[bin] += nodeCounts[t];
+                occupied[bin >>> 6] |= 1L << bin;
+            }
+            long wl = 0;
+            long l1 = 0;
+            for (int word = 0; word < occupied.length; word++) {
+                long bits = occupied[word];
+                occupied[word] = 0;
+                while (bits != 0) {
+                    int bin = (word << 6) | Long.numberOfTrailingZeros(bits);
+                    bits &= bits - 1;
+                    long packed = binCounts[bin];
+                    binCounts[bin] = 0;
+                    wl += packed & 0xffffffffL;
+                    l1 += packed >>> 32;
+                    long wr = w - wl;
+                    if (wr == 0 || wl < minLeaf || wr < minLeaf) {
+                        continue; // the last occupied bin, or a child too small
+                    }
+                    long l0 = wl - l1;
+                    long r0 = p0 - l0;
+                    long r1 = wr - r0;
+                    long sl = l0 * l0 + l1 * l1;
+                    long sr = r0 * r0 + r1 * r1;
+                    // division-free screen first (see mayBeat); then the exact value, as decrease computes it
+                    if (!((double) sl * wr + (double) sr * wl > (best + parentScore) * wl * wr * (1 - 1e-9))) {
+                        continue;
+                    }
+                    double d = (double) sl / wl + (double) sr / wr - parentScore;
+                    if (d > best) {
+                        best = d;
+                        keep(f, bin, d);
+                    }
+                }
+            }
+        }
+        return bestFeature < 0 ? -1 : 0;
     }
 
     /**
