@@ -29,13 +29,28 @@ final class RbfKernel {
         return k;
     }
 
+    /** {@code |a - b|^2} summed directly (as LIBSVM's prediction does), in four running sums. */
     static double squaredDistance(double[] a, double[] b) {
-        double s = 0;
-        for (int j = 0; j < a.length; j++) {
-            double d = a[j] - b[j];
-            s += d * d;
+        double s0 = 0;
+        double s1 = 0;
+        double s2 = 0;
+        double s3 = 0;
+        int j = 0;
+        for (; j + 3 < a.length; j += 4) {
+            double d0 = a[j] - b[j];
+            double d1 = a[j + 1] - b[j + 1];
+            double d2 = a[j + 2] - b[j + 2];
+            double d3 = a[j + 3] - b[j + 3];
+            s0 += d0 * d0;
+            s1 += d1 * d1;
+            s2 += d2 * d2;
+            s3 += d3 * d3;
         }
-        return s;
+        for (; j < a.length; j++) {
+            double d = a[j] - b[j];
+            s0 += d * d;
+        }
+        return (s0 + s1) + (s2 + s3);
     }
 
     private static double dot(double[] a, double[] b) {
