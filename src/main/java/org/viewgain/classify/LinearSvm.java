@@ -99,10 +99,8 @@ public final class LinearSvm implements ClassifierMethod {
                 int i = order[k];
                 double[] xi = x[i];
                 int yi = signs[i];
-                double dot = b;
-                for (int j = 0; j < p; j++) {
-                    dot += w[j] * xi[j];
-                }
+                // four running sums: a single one is bound by the latency of each addition
+                double dot = b + RbfKernel.dot(w, xi);
                 double g = yi * dot - 1;
                 double pg = g;
                 if (alpha[i] == 0) {

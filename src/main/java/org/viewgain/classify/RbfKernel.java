@@ -53,7 +53,8 @@ final class RbfKernel {
         return (s0 + s1) + (s2 + s3);
     }
 
-    private static double dot(double[] a, double[] b) {
+    /** {@code a.b} in four running sums (summed in a fixed order, so the result is deterministic). */
+    static double dot(double[] a, double[] b) {
         double s0 = 0;
         double s1 = 0;
         double s2 = 0;
