@@ -95,6 +95,7 @@ final class RunCommand implements Callable<Integer> {
         ComparisonPairs.of(ex); // names in significance.compare are checked before anything is written
         err.print(org.viewgain.report.CheckReport.duplicateWarning(ex));
         err.print(org.viewgain.report.CheckReport.costWarning(ex));
+        err.print(org.viewgain.report.CheckReport.powerWarning(ex));
         err.flush();
         Instant start = Instant.now();
         Provenance prov = provenance(cl, ex, common);
