@@ -96,6 +96,7 @@ final class RunCommand implements Callable<Integer> {
         err.print(org.viewgain.report.CheckReport.duplicateWarning(ex));
         err.print(org.viewgain.report.CheckReport.costWarning(ex));
         err.print(org.viewgain.report.CheckReport.powerWarning(ex));
+        err.print(org.viewgain.report.MissingTargets.warning(ex));
         err.flush();
         Instant start = Instant.now();
         Provenance prov = provenance(cl, ex, common);

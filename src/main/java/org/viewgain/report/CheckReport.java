@@ -62,6 +62,7 @@ public final class CheckReport {
         }
         b.append(" (extract: ").append(String.join(", ", ex.spec().features().extract())).append(")\n");
         b.append("  fitted inside every fit: ").append(steps(ex)).append('\n');
+        b.append(MissingTargets.text(ex));
         FoldPlan plan = ex.plan();
         b.append("\nfolds: ").append(plan.scheme()).append(", ").append(plan.repeats()).append(" repeat(s); inner ")
                 .append(ex.spec().validation().innerFolds()).append(" folds, tuned by ")
