@@ -102,12 +102,12 @@ public final class NullComparisonBench {
         report("chance", all.stream().map(Cohort::chance).toList(), folds * repeats, folds);
     }
 
-    private static List<Comparisons.Row> run(Path dir, String body, boolean site) throws Exception {
+    static List<Comparisons.Row> run(Path dir, String body, boolean site) throws Exception {
         Experiment ex = Setup.prepare(SpecLoader.load(NullCalibrationBench.spec(dir, body, site)));
         return Comparisons.of(new Runner(ex, 1, Progress.NONE).run());
     }
 
-    private static void report(String name, List<List<Comparisons.Row>> rows, int k, int folds) {
+    static void report(String name, List<List<Comparisons.Row>> rows, int k, int folds) {
         // the uncorrected paired t-test on the same k fold differences: its statistic is the corrected one times
         // sqrt(1 + k * n_test / n_train) (Nadeau & Bengio 2003, the variance factor), n_test / n_train = 1/(folds-1)
         double inflate = Math.sqrt(1 + k / (folds - 1.0));
