@@ -56,12 +56,14 @@ final class Power {
             return "";
         }
         return "With " + plan() + " the corrected repeated cross-validation t-test, on which each verdict rests, "
-                + "has little power: its correction for overlapping training sets makes it reject far less often "
-                + "than its nominal level on null data with few resamples (docs/benchmarks.md), so a p-value above "
-                + "the level is not evidence that the pipelines perform alike. Bouckaert & Frank (2004) recommend "
-                + "10 repeats of 10-fold cross-validation for this test: set validation.outer.folds: 10 (at most "
-                + "the size of the smallest group) and validation.outer.repeats: 10, and rerun. McNemar's and "
-                + "DeLong's tests treat the trained models as fixed and are shown for reference; they do not "
-                + "decide the verdict.";
+                + "has little power: its correction for overlapping training sets makes it conservative, and with "
+                + "few resamples it misses real differences (on invented cohorts of 60 subjects it found a planted "
+                + "gain of 0.12 in balanced accuracy in 29% of cohorts at 5 x 2 and 75% at 10 x 10; "
+                + "docs/benchmarks.md). A p-value above the level is therefore not evidence that the pipelines "
+                + "perform alike. Bouckaert & Frank (2004) recommend 10 repeats of 10-fold cross-validation for "
+                + "this test: set validation.outer.folds: 10 (at most the size of the smallest group) and "
+                + "validation.outer.repeats: 10, and rerun. McNemar's and DeLong's tests treat the trained models "
+                + "as fixed and are shown for reference; they do not decide the verdict (DeLong's test rejected 7-10% "
+                + "of null comparisons of two pipelines at a nominal 5%).";
     }
 }
