@@ -31,7 +31,8 @@ final class MissingSection {
                     Html.esc(MissingTargets.pText(r.d("p_value"))), Html.esc(r.s("caveat"))));
         }
         return "<h3 id=\"missing-targets\">Missing target views</h3>\n<p>Is a missing target view associated with "
-                + "group, site or a covariate? Fisher's exact test for two levels, a chi-square test for more, the "
+                + "group, site or a covariate? Fisher's exact test for two levels, its Freeman-Halton extension for more "
+                + "(a chi-square test when the tables are too many to enumerate), the "
                 + "Wilcoxon rank-sum test for a covariate (two-sided, unadjusted). A p above the level does not show "
                 + "that targets are missing at random.</p>\n"
                 + Html.table("missing", List.of("variable", "level", "target observed", "target missing",

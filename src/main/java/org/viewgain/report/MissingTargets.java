@@ -9,12 +9,14 @@ import org.viewgain.engine.Experiment;
 import org.viewgain.spec.FeatureSet;
 import org.viewgain.stats.ChiSquareIndependence;
 import org.viewgain.stats.FisherExact;
+import org.viewgain.stats.FreemanHalton;
 import org.viewgain.stats.RankSum;
 import org.viewgain.stats.TestResult;
 
 /**
  * Are target views missing at random with respect to group, site and covariates? For group and site: Fisher's exact
- * test when there are two levels (Agresti 2002, section 3.5), else Pearson's chi-square test of independence (an
+ * test when there are two levels (Agresti 2002, section 3.5), its Freeman-Halton extension for more (Freeman &amp;
+ * Halton 1951), and Pearson's chi-square test of independence only when there are too many tables to enumerate (an
  * approximation, flagged when an expected count is below 5). For each covariate: the Wilcoxon rank-sum test of its
  * values in subjects with and without a target, chosen over a logistic regression because it assumes no linear
  * log-odds, is unchanged by monotone recoding (age in years or months), and stays defined when the covariate
@@ -86,11 +88,21 @@ public final class MissingTargets {
             test = "fisher-exact";
             p = FisherExact.twoSided((int) table[0][0], (int) table[0][1], (int) table[1][0], (int) table[1][1]);
         } else {
-            test = "chi-square";
-            TestResult t = ChiSquareIndependence.test(table);
-            statistic = t.statistic();
-            p = t.p();
-            caveat = ChiSquareIndependence.smallExpected(table) ? "expected count below 5: approximate" : "";
+            long[] observed = new long[levels.size()];
+            long[] missing = new long[levels.size()];
+            for (int l = 0; l < levels.size(); l++) {
+                observed[l] = table[l][0];
+                missing[l] = table[l][1];
+            }
+            test = "freeman-halton";
+            p = FreemanHalton.p(observed, missing);
+            if (Double.isNaN(p)) { // too many tables to enumerate: the large-sample approximation
+                test = "chi-square";
+                TestResult t = ChiSquareIndependence.test(table);
+                statistic = t.statistic();
+                p = t.p();
+                caveat = ChiSquareIndependence.smallExpected(table) ? "expected count below 5: approximate" : "";
+            }
         }
         List<Row> out = new ArrayList<>();
         for (int l = 0; l < levels.size(); l++) {
@@ -204,6 +216,7 @@ public final class MissingTargets {
     static String testName(String test) {
         return switch (test) {
             case "fisher-exact" -> "Fisher's exact test";
+            case "freeman-halton" -> "Freeman-Halton exact test";
             case "chi-square" -> "chi-square test";
             case "rank-sum" -> "Wilcoxon rank-sum test";
             default -> test;

@@ -24,6 +24,10 @@ class MissingTargetsCliTest {
 
     /** Writes the cohort; {@code missing} picks the subjects without a target; they are 12 years older when aged. */
     static Path cohort(Path dir, IntPredicate missing, boolean older) throws IOException {
+        return cohort(dir, missing, older, new String[] {"east", "west"});
+    }
+
+    static Path cohort(Path dir, IntPredicate missing, boolean older, String[] sites) throws IOException {
         Files.createDirectories(dir);
         StringBuilder subjects = new StringBuilder("subject,group,site,age\n");
         StringBuilder src = new StringBuilder("subject,s1,s2,s3\n");
@@ -32,7 +36,7 @@ class MissingTargetsCliTest {
             String id = String.format(Locale.ROOT, "m%02d", i);
             int age = 40 + i * 7 % 23 + (older && missing.test(i) ? 12 : 0);
             subjects.append(id).append(',').append(i % 2 == 1 ? "patient" : "control").append(',')
-                    .append(i / 2 % 2 == 0 ? "east" : "west").append(',').append(age).append('\n');
+                    .append(sites[i / 2 % sites.length]).append(',').append(age).append('\n');
             src.append(id).append(',').append(i % 7).append(',').append(i % 5).append(',').append(i % 3).append('\n');
             if (!missing.test(i)) {
                 tgt.append(id).append(',').append(i % 4).append(',').append(i % 6).append('\n');
@@ -89,6 +93,19 @@ class MissingTargetsCliTest {
         assertTrue(c.out().contains("group: control 5/30 patient 6/30; Fisher's exact test p = 1.000"), c.out());
         assertTrue(c.out().contains("no association at level 0.05"), c.out());
         assertFalse(c.out().contains("selected subgroup"), c.out());
+    }
+
+    @Test
+    void givenThreeSites_whenChecked_thenFreemanHaltonExactTest() throws IOException {
+        Path spec = cohort(dir, MissingTargetsCliTest::notAtRandom, false, new String[] {"east", "west", "north"});
+        CliTest.Outcome c = CliTest.run("check", spec.toString());
+        assertEquals(0, c.code(), c.err());
+        // sites of subject i: (i / 2) mod 3; the 22 without a target fall 8, 8 and 6 into east, west and north (by
+        // hand: controls 0 and 2 in east and west, patients j = i / 2 = 0..19 by j mod 3: 7, 7, 6). Freeman & Halton
+        // 1951 on observed (12, 14, 12) and missing (8, 6, 8): p = 0.8395542842389955, recomputed by a separate
+        // enumeration in Python (exact integer binomials), printed to 3 decimals
+        assertTrue(c.out().contains("site: east 8/20 north 6/20 west 8/20; Freeman-Halton exact test p = 0.840"),
+                c.out());
     }
 
     @Test
