@@ -95,8 +95,6 @@ final class RunCommand implements Callable<Integer> {
         ComparisonPairs.of(ex); // names in significance.compare are checked before anything is written
         err.print(org.viewgain.report.CheckReport.duplicateWarning(ex));
         err.print(org.viewgain.report.CheckReport.costWarning(ex));
-        err.print(org.viewgain.report.CheckReport.powerWarning(ex));
-        err.print(org.viewgain.report.MissingTargets.warning(ex));
         err.flush();
         Instant start = Instant.now();
         Provenance prov = provenance(cl, ex, common);
@@ -116,6 +114,10 @@ final class RunCommand implements Callable<Integer> {
             prov.put("shard", shard.label());
         }
         folder.writeText("run.json", prov.toJson());
+        // after the journal's checks, so that a refused resume stays one line
+        err.print(org.viewgain.report.CheckReport.powerWarning(ex));
+        err.print(org.viewgain.report.MissingTargets.warning(ex));
+        err.flush();
         if (!common.quiet) {
             err.println("[viewgain] " + ex.pipelines().size() + " pipelines, " + ex.modelFits() + " model fits, "
                     + common.threads() + " thread(s)" + (shard == null ? "" : ", shard " + shard.label())
