@@ -41,20 +41,28 @@ public final class FreemanHalton {
             }
         }
         double logTotal = CombinatoricsUtils.binomialCoefficientLog((int) n, (int) r1);
-        double observed = logP(row1, col, logTotal);
+        // log C(c_j, x) for every column and count, computed once
+        double[][] logC = new double[c][];
+        for (int j = 0; j < c; j++) {
+            logC[j] = new double[(int) col[j] + 1];
+            for (int x = 0; x <= col[j]; x++) {
+                logC[j][x] = CombinatoricsUtils.binomialCoefficientLog((int) col[j], x);
+            }
+        }
+        double observed = logP(row1, logC, logTotal);
         long[] after = new long[c + 1];
         for (int j = c - 1; j >= 0; j--) {
             after[j] = after[j + 1] + col[j];
         }
         double[] sum = {0};
-        enumerate(0, r1, new long[c], col, after, logTotal, observed + Math.log1p(1e-7), sum);
+        enumerate(0, r1, new long[c], col, after, logC, logTotal, observed + Math.log1p(1e-7), sum);
         return Math.min(1, sum[0]);
     }
 
-    private static void enumerate(int j, long remaining, long[] x, long[] col, long[] after, double logTotal,
-                                  double bound, double[] sum) {
+    private static void enumerate(int j, long remaining, long[] x, long[] col, long[] after, double[][] logC,
+                                  double logTotal, double bound, double[] sum) {
         if (j == x.length) {
-            double lp = logP(x, col, logTotal);
+            double lp = logP(x, logC, logTotal);
             if (lp <= bound) {
                 sum[0] += Math.exp(lp);
             }
@@ -64,14 +72,14 @@ public final class FreemanHalton {
         long hi = Math.min(col[j], remaining);
         for (long v = lo; v <= hi; v++) {
             x[j] = v;
-            enumerate(j + 1, remaining - v, x, col, after, logTotal, bound, sum);
+            enumerate(j + 1, remaining - v, x, col, after, logC, logTotal, bound, sum);
         }
     }
 
-    private static double logP(long[] x, long[] col, double logTotal) {
+    private static double logP(long[] x, double[][] logC, double logTotal) {
         double lp = -logTotal;
         for (int j = 0; j < x.length; j++) {
-            lp += CombinatoricsUtils.binomialCoefficientLog((int) col[j], (int) x[j]);
+            lp += logC[j][(int) x[j]];
         }
         return lp;
     }
