@@ -106,6 +106,28 @@ class HtmlReportTest {
         assertTrue(first.contains("AUC (scores averaged over repeats)"), first);
     }
 
+    @Test
+    void givenComparisonsWithoutQuantityColumn_whenReported_thenRenderedWithoutQuantityWords() throws IOException {
+        // run folders written before comparisons.csv had a quantity column are still read
+        Path r = fullRun();
+        Path csv = r.resolve("comparisons.csv");
+        List<String> lines = Files.readAllLines(csv);
+        int q = List.of(lines.get(0).split(",", -1)).indexOf("quantity");
+        StringBuilder old = new StringBuilder();
+        for (String line : lines) {
+            List<String> cells = new java.util.ArrayList<>(List.of(line.split(",", -1)));
+            cells.remove(q);
+            old.append(String.join(",", cells)).append('\n');
+        }
+        Files.writeString(csv, old);
+        Document doc = Jsoup.parse(HtmlReport.render(r, false));
+        String answer = doc.getElementById("answer").text();
+        assertTrue(answer.contains("balanced accuracy "), answer);
+        assertTrue(!answer.contains("mean over outer folds") && !answer.contains("()"), answer);
+        assertEquals(CsvRows.readIfPresent(r, "comparisons.csv").rows().size(),
+                doc.select("#answer table.answer tr[data-test]").size());
+    }
+
     /** The permutation p shown in a badge is that of one of the two pipelines of the row. */
     private static String permutationP(CsvRows perms, String a, String b, String shown) {
         for (CsvRows.Row p : perms.rows()) {
