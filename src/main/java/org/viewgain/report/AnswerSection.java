@@ -41,6 +41,10 @@ final class AnswerSection {
 
     private static void fromComparisons(ReportData d, Chance chance, StringBuilder b) {
         Power power = Power.of(d);
+        b.append("<p class=\"small\" id=\"verdict-basis\">Each verdict rests on the corrected repeated "
+                + "cross-validation t-test of balanced accuracy. McNemar's and DeLong's tests treat the trained "
+                + "models as fixed and are shown for reference only; on invented null cohorts DeLong's test rejected "
+                + "7-10% of comparisons of two different pipelines at a nominal 5% (docs/benchmarks.md).</p>\n");
         if (power.low()) {
             b.append("<p class=\"warn\" id=\"power\">").append(Html.esc(power.note())).append("</p>\n");
         }

@@ -62,8 +62,6 @@ final class Power {
                 + "docs/benchmarks.md). A p-value above the level is therefore not evidence that the pipelines "
                 + "perform alike. Bouckaert & Frank (2004) recommend 10 repeats of 10-fold cross-validation for "
                 + "this test: set validation.outer.folds: 10 (at most the size of the smallest group) and "
-                + "validation.outer.repeats: 10, and rerun. McNemar's and DeLong's tests treat the trained models "
-                + "as fixed and are shown for reference; they do not decide the verdict (DeLong's test rejected 7-10% "
-                + "of null comparisons of two pipelines at a nominal 5%).";
+                + "validation.outer.repeats: 10, and rerun.";
     }
 }

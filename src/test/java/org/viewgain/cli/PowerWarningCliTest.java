@@ -64,5 +64,6 @@ class PowerWarningCliTest {
         String html = Files.readString(report);
         assertTrue(html.contains("id=\"power\""), "power note in the answer section");
         assertTrue(html.contains("With 5 folds x 2 repeats the corrected repeated cross-validation t-test"), html);
+        assertTrue(html.contains("id=\"verdict-basis\""), "what the verdict rests on is stated");
     }
 }
