@@ -114,6 +114,10 @@ final class RunCommand implements Callable<Integer> {
             prov.put("shard", shard.label());
         }
         folder.writeText("run.json", prov.toJson());
+        // after the journal's checks, so that a refused resume stays one line
+        err.print(org.viewgain.report.CheckReport.powerWarning(ex));
+        err.print(org.viewgain.report.MissingTargets.warning(ex));
+        err.flush();
         if (!common.quiet) {
             err.println("[viewgain] " + ex.pipelines().size() + " pipelines, " + ex.modelFits() + " model fits, "
                     + common.threads() + " thread(s)" + (shard == null ? "" : ", shard " + shard.label())

@@ -24,20 +24,32 @@ import org.viewgain.stats.McNemar;
  * predictions of the first repeat;</li>
  * <li>AUC: DeLong test (DeLong et al. 1988) on each subject's score averaged over repeats.</li>
  * </ul>
- * p-values are adjusted across all comparisons of a run, separately for each test, by the spec's method.
+ * p-values are adjusted across all comparisons of a run, separately for each test, by the spec's method. Every row
+ * names the {@code quantity} its estimates, difference and interval are of (see {@link #MEAN_OVER_FOLDS} and the
+ * others), so that estimate A minus estimate B is the difference the test is about and the interval is centred on it.
  */
 public final class Comparisons {
     private Comparisons() {
     }
 
-    /** One test of one comparison (cells that do not apply are NaN). */
-    public record Row(String comparison, Pipeline a, Pipeline b, int n, String test, String metric,
+    /** The metric in each outer fold, averaged over folds and repeats: what the two t-tests are about. */
+    public static final String MEAN_OVER_FOLDS = "mean-over-folds";
+    /** The metric on the pooled out-of-fold predictions of repeat 1: what McNemar's test is about. */
+    public static final String FIRST_REPEAT_POOLED = "first-repeat-pooled";
+    /** The AUC of each subject's score averaged over repeats: what the DeLong test is about. */
+    public static final String REPEAT_AVERAGED_SCORES = "repeat-averaged-scores";
+
+    /**
+     * One test of one comparison (cells that do not apply are NaN); estimateA, estimateB, difference = estimateA -
+     * estimateB and the interval are all of {@code quantity}.
+     */
+    public record Row(String comparison, Pipeline a, Pipeline b, int n, String test, String metric, String quantity,
                       double estimateA, double estimateB, double difference, double ciLow, double ciHigh,
                       double statistic, double pValue, double pAdjusted, String adjustMethod, double probABetter,
                       double probEquivalent, double probBBetter, double rope) {
         Row withAdjusted(double adj) {
-            return new Row(comparison, a, b, n, test, metric, estimateA, estimateB, difference, ciLow, ciHigh,
-                    statistic, pValue, adj, adjustMethod, probABetter, probEquivalent, probBBetter, rope);
+            return new Row(comparison, a, b, n, test, metric, quantity, estimateA, estimateB, difference, ciLow,
+                    ciHigh, statistic, pValue, adj, adjustMethod, probABetter, probEquivalent, probBBetter, rope);
         }
     }
 
@@ -62,7 +74,7 @@ public final class Comparisons {
         int repeats = res.plan().repeats();
         String adjust = sig.adjust();
         List<Row> out = new ArrayList<>();
-        // balanced accuracy, fold by fold
+        // balanced accuracy, fold by fold; the estimates are the means of the fold values the test uses
         List<Double> diffs = new ArrayList<>();
         double ratio = 0;
         int ratioCount = 0;
@@ -71,33 +83,37 @@ public final class Comparisons {
         for (int r = 0; r < repeats; r++) {
             List<RunResults.Prediction> pa = restrict(Evaluation.select(res, pair.a(), r, -1), common);
             List<RunResults.Prediction> pb = restrict(Evaluation.select(res, pair.b(), r, -1), common);
-            baA += Evaluation.compute(ex, pa).get("balanced_accuracy") / repeats;
-            baB += Evaluation.compute(ex, pb).get("balanced_accuracy") / repeats;
             for (int f = 0; f < res.plan().folds(r); f++) {
                 final int ff = f;
                 List<RunResults.Prediction> fa = pa.stream().filter(p -> p.fold() == ff).toList();
                 List<RunResults.Prediction> fb = pb.stream().filter(p -> p.fold() == ff).toList();
-                double d = Evaluation.compute(ex, fa).get("balanced_accuracy")
-                        - Evaluation.compute(ex, fb).get("balanced_accuracy");
+                double va = Evaluation.compute(ex, fa).get("balanced_accuracy");
+                double vb = Evaluation.compute(ex, fb).get("balanced_accuracy");
+                double d = va - vb;
                 if (!Double.isNaN(d) && !fa.isEmpty()) {
                     diffs.add(d);
+                    baA += va;
+                    baB += vb;
+                    // n_test / n_train of this fold within the subjects both pipelines use
                     ratio += fa.size() / (double) (common.size() - fa.size());
                     ratioCount++;
                 }
             }
         }
+        baA /= diffs.size();
+        baB /= diffs.size();
         int n = common.size();
         double[] d = diffs.stream().mapToDouble(Double::doubleValue).toArray();
         if (d.length >= 2 && ratioCount > 0) {
             double rt = ratio / ratioCount;
             CorrectedTTest.Result t = CorrectedTTest.test(d, rt);
             Interval ci = t.interval(sig.confidence());
-            out.add(new Row(pair.comparison(), pair.a(), pair.b(), n, "corrected-t", "balanced_accuracy", baA, baB,
-                    baA - baB, ci.low(), ci.high(), t.t(), t.p(), Double.NaN, adjust, Double.NaN, Double.NaN,
-                    Double.NaN, Double.NaN));
+            out.add(new Row(pair.comparison(), pair.a(), pair.b(), n, "corrected-t", "balanced_accuracy",
+                    MEAN_OVER_FOLDS, baA, baB, t.meanDifference(), ci.low(), ci.high(), t.t(), t.p(), Double.NaN,
+                    adjust, Double.NaN, Double.NaN, Double.NaN, Double.NaN));
             BayesCorrelatedTTest.Posterior post = BayesCorrelatedTTest.of(d, rt / (1 + rt), sig.rope());
-            out.add(new Row(pair.comparison(), pair.a(), pair.b(), n, "bayes-correlated-t", "balanced_accuracy", baA,
-                    baB, baA - baB, Double.NaN, Double.NaN, Double.NaN, Double.NaN, Double.NaN, "", post.right(),
+            out.add(new Row(pair.comparison(), pair.a(), pair.b(), n, "bayes-correlated-t", "balanced_accuracy",
+                    MEAN_OVER_FOLDS, baA, baB, post.mean(), Double.NaN, Double.NaN, Double.NaN, Double.NaN, Double.NaN, "", post.right(),
                     post.rope(), post.left(), sig.rope()));
         }
         // accuracy, McNemar on the first repeat's pooled predictions
@@ -119,12 +135,12 @@ public final class Comparisons {
             double accA = accuracy(truth, predA);
             double accB = accuracy(truth, predB);
             double stat = disc.onlyACorrect() - disc.onlyBCorrect();
-            out.add(new Row(pair.comparison(), pair.a(), pair.b(), subjects.size(), "mcnemar-exact", "accuracy", accA,
-                    accB, accA - accB, Double.NaN, Double.NaN, stat, McNemar.exactP(disc), Double.NaN, adjust,
-                    Double.NaN, Double.NaN, Double.NaN, Double.NaN));
-            out.add(new Row(pair.comparison(), pair.a(), pair.b(), subjects.size(), "mcnemar-mid-p", "accuracy", accA,
-                    accB, accA - accB, Double.NaN, Double.NaN, stat, McNemar.midP(disc), Double.NaN, adjust,
-                    Double.NaN, Double.NaN, Double.NaN, Double.NaN));
+            out.add(new Row(pair.comparison(), pair.a(), pair.b(), subjects.size(), "mcnemar-exact", "accuracy",
+                    FIRST_REPEAT_POOLED, accA, accB, accA - accB, Double.NaN, Double.NaN, stat, McNemar.exactP(disc),
+                    Double.NaN, adjust, Double.NaN, Double.NaN, Double.NaN, Double.NaN));
+            out.add(new Row(pair.comparison(), pair.a(), pair.b(), subjects.size(), "mcnemar-mid-p", "accuracy",
+                    FIRST_REPEAT_POOLED, accA, accB, accA - accB, Double.NaN, Double.NaN, stat, McNemar.midP(disc),
+                    Double.NaN, adjust, Double.NaN, Double.NaN, Double.NaN, Double.NaN));
         }
         // AUC, DeLong on repeat-averaged scores (two groups only)
         if (ex.spec().cohort().groups().size() == 2 && !subjects.isEmpty()) {
@@ -137,9 +153,9 @@ public final class Comparisons {
                 }
                 DeLong.Comparison c = DeLong.compare(sa, sb, pos);
                 Interval ci = c.interval(sig.confidence());
-                out.add(new Row(pair.comparison(), pair.a(), pair.b(), subjects.size(), "delong", "auc", c.aucA(),
-                        c.aucB(), c.difference(), ci.low(), ci.high(), c.z(), c.p(), Double.NaN, adjust, Double.NaN,
-                        Double.NaN, Double.NaN, Double.NaN));
+                out.add(new Row(pair.comparison(), pair.a(), pair.b(), subjects.size(), "delong", "auc",
+                        REPEAT_AVERAGED_SCORES, c.aucA(), c.aucB(), c.difference(), ci.low(), ci.high(), c.z(),
+                        c.p(), Double.NaN, adjust, Double.NaN, Double.NaN, Double.NaN, Double.NaN));
             }
         }
         return out;

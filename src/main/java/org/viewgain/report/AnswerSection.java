@@ -40,6 +40,14 @@ final class AnswerSection {
     }
 
     private static void fromComparisons(ReportData d, Chance chance, StringBuilder b) {
+        Power power = Power.of(d);
+        b.append("<p class=\"small\" id=\"verdict-basis\">Each verdict rests on the corrected repeated "
+                + "cross-validation t-test of balanced accuracy. McNemar's and DeLong's tests treat the trained "
+                + "models as fixed and are shown for reference only; on invented null cohorts DeLong's test rejected "
+                + "7-10% of comparisons of two different pipelines at a nominal 5% (docs/benchmarks.md).</p>\n");
+        if (power.low()) {
+            b.append("<p class=\"warn\" id=\"power\">").append(Html.esc(power.note())).append("</p>\n");
+        }
         Set<String> classifiers = new LinkedHashSet<>();
         d.comparisons.rows().forEach(r -> classifiers.add(r.s("classifier_a")));
         List<CsvRows.Row> mixed = d.comparisons.where(r -> !r.s("classifier_a").equals(r.s("classifier_b")));
@@ -51,7 +59,7 @@ final class AnswerSection {
             }
             b.append("<div class=\"classifier\" id=\"answer-").append(Html.esc(slug(c))).append("\"><h3>Classifier ")
                     .append(Html.esc(c)).append("</h3>\n<ul class=\"verdicts\">\n");
-            pairs(rows).forEach((pair, pr) -> b.append("<li>").append(sentence(pr, d.alpha(), chance))
+            pairs(rows).forEach((pair, pr) -> b.append("<li>").append(sentence(pr, d.alpha(), chance, power))
                     .append("</li>\n"));
             b.append("</ul>\n").append(table(rows, chance));
             b.append("</div>\n");
@@ -80,7 +88,7 @@ final class AnswerSection {
     }
 
     /** One plain sentence: the verdict, then balanced accuracy, AUC and the Bayesian probabilities. */
-    static String sentence(List<CsvRows.Row> rows, double alpha, Chance chance) {
+    static String sentence(List<CsvRows.Row> rows, double alpha, Chance chance, Power power) {
         CsvRows.Row first = rows.get(0);
         String nameA = Names.features(first.s("imputer_a"), first.s("feature_set_a"));
         String nameB = Names.features(first.s("imputer_b"), first.s("feature_set_b"));
@@ -95,14 +103,15 @@ final class AnswerSection {
         }
         CsvRows.Row primary = bal != null ? bal : auc;
         StringBuilder s = new StringBuilder();
-        s.append("<strong>").append(Html.esc(verdict(primary, alpha, nameA, nameB))).append("</strong> ");
+        s.append("<strong>").append(Html.esc(verdict(primary, alpha, nameA, nameB, power))).append("</strong> ");
         s.append(Html.esc(nameA)).append(" against ").append(Html.esc(nameB)).append(": ");
         List<String> parts = new ArrayList<>();
         for (CsvRows.Row r : new CsvRows.Row[] {bal, auc}) {
             if (r != null) {
                 boolean adjusted = Double.isFinite(r.d("p_adjusted"));
-                parts.add(Html.esc(String.format(Locale.ROOT, "%s %s vs %s (%s%s; %s p = %s)",
-                        Names.metric(r.s("metric")), Html.f3(r.d("estimate_a")), Html.f3(r.d("estimate_b")),
+                String of = r.s("quantity").isEmpty() ? "" : " (" + Names.quantity(r.s("quantity")) + ")";
+                parts.add(Html.esc(String.format(Locale.ROOT, "%s%s %s vs %s (%s%s; %s p = %s)",
+                        Names.metric(r.s("metric")), of, Html.f3(r.d("estimate_a")), Html.f3(r.d("estimate_b")),
                         Html.signed3(r.d("difference")), interval(r), adjusted ? "adjusted" : "",
                         Html.p(adjusted ? r.d("p_adjusted") : r.d("p_value"))).replace(";  p", "; p")));
             }
@@ -128,7 +137,11 @@ final class AnswerSection {
                 + Html.signed3(hi) + ")" : "";
     }
 
-    static String verdict(CsvRows.Row r, double alpha, String nameA, String nameB) {
+    /**
+     * The verdict rests on the primary test (the corrected t-test when present). When it is not significant and the
+     * plan left it little power ({@link Power}), the verdict says "not shown", never "no difference".
+     */
+    static String verdict(CsvRows.Row r, double alpha, String nameA, String nameB, Power power) {
         if (r == null) {
             return "No frequentist test for this pair.";
         }
@@ -140,6 +153,10 @@ final class AnswerSection {
         }
         if (p <= alpha && diff < 0) {
             return nameA + " is worse than " + nameB + " (p \u2264 " + level + ").";
+        }
+        if (power.low() && r.s("test").equals("corrected-t")) {
+            return "Not shown at level " + level + ": " + power.plan() + " leave the corrected t-test little power;"
+                    + " this is not evidence of no difference.";
         }
         return "No clear difference at level " + level + ".";
     }
@@ -179,7 +196,9 @@ final class AnswerSection {
                     .append("\">");
             b.append("<td>").append(Html.esc(Names.test(r.s("test")))).append(r.s("n").isEmpty() ? ""
                     : "<br><span class=\"small\">n = " + Html.esc(r.s("n")) + "</span>").append("</td>");
-            b.append("<td>").append(Html.esc(Names.metric(r.s("metric")))).append("</td>");
+            b.append("<td>").append(Html.esc(Names.metric(r.s("metric")))).append(r.s("quantity").isEmpty() ? ""
+                    : "<br><span class=\"small\">" + Html.esc(Names.quantity(r.s("quantity"))) + "</span>")
+                    .append("</td>");
             b.append(cell(r, "estimate_a", false)).append(cell(r, "estimate_b", false))
                     .append(cell(r, "difference", true));
             b.append("<td>").append(r.s("ci_low").isEmpty() ? "\u2013" : Html.num("ci_low", r.s("ci_low"),

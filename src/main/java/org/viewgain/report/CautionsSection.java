@@ -17,7 +17,9 @@ final class CautionsSection {
                 + "<li><strong>Missing-view assumption.</strong> Imputation assumes that a subject's target view is "
                 + "missing at random given the source view; if the reason a target is missing is related to the "
                 + "group or to the unseen target itself, the imputed view and every comparison that uses it can be "
-                + "biased. The cohort section flags target missingness that differs by group.</li>\n"
+                + "biased; the complete-case feature sets (target, source+target) then describe a selected subgroup. The "
+                + "cohort section tests whether missing targets are associated with group, site or a covariate; a "
+                + "test that finds nothing does not show that targets are missing at random.</li>\n"
                 + "<li><strong>Permutation and PERMANOVA p-values</strong> test against chance on this cohort only; "
                 + "group separation without a classifier is descriptive.</li>\n"
                 + "</ul>\n</section>\n";

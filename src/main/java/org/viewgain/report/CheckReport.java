@@ -4,10 +4,12 @@ import java.util.List;
 import java.util.Map;
 import java.util.TreeMap;
 import org.viewgain.cohort.Subject;
+import org.viewgain.engine.ComparisonPairs;
 import org.viewgain.engine.Duplicates;
 import org.viewgain.engine.Experiment;
 import org.viewgain.engine.Pipeline;
 import org.viewgain.folds.FoldPlan;
+import org.viewgain.stats.CorrectedTTest;
 
 /** The plain-text cohort and plan summary printed by {@code viewgain check} and at the start of a run. */
 public final class CheckReport {
@@ -60,6 +62,7 @@ public final class CheckReport {
         }
         b.append(" (extract: ").append(String.join(", ", ex.spec().features().extract())).append(")\n");
         b.append("  fitted inside every fit: ").append(steps(ex)).append('\n');
+        b.append(MissingTargets.text(ex));
         FoldPlan plan = ex.plan();
         b.append("\nfolds: ").append(plan.scheme()).append(", ").append(plan.repeats()).append(" repeat(s); inner ")
                 .append(ex.spec().validation().innerFolds()).append(" folds, tuned by ")
@@ -71,6 +74,7 @@ public final class CheckReport {
             }
             b.append('\n');
         }
+        b.append(powerWarning(ex).replace("[viewgain] warning: ", "  note: "));
         b.append("\npipelines: ").append(ex.pipelines().size()).append('\n');
         for (Pipeline p : ex.pipelines()) {
             b.append("  ").append(p.label()).append('\n');
@@ -127,6 +131,27 @@ public final class CheckReport {
     /** The warning a run prints to stderr before it starts; empty when there are no possible duplicates. */
     public static String duplicateWarning(Experiment ex) {
         return ex.duplicates().isEmpty() ? "" : "[viewgain] warning: " + duplicates(ex, 5);
+    }
+
+    /**
+     * A warning when the run compares pipelines on a stratified k-fold plan with fewer folds or repeats than the
+     * 10 x 10 that Bouckaert &amp; Frank (2004) recommend for the corrected t-test; empty otherwise.
+     */
+    public static String powerWarning(Experiment ex) {
+        FoldPlan plan = ex.plan();
+        int folds = ex.spec().validation().folds();
+        int repeats = plan.repeats();
+        if (!plan.scheme().equals("stratified-k-fold") || ComparisonPairs.of(ex).isEmpty()
+                || !CorrectedTTest.fewResamples(folds, repeats)) {
+            return "";
+        }
+        return "[viewgain] warning: with " + folds + " folds x " + repeats + " repeat(s) the corrected t-test of the "
+                + "paired comparisons has little power (it is conservative, and found a planted gain of 0.12 in "
+                + "balanced accuracy in 29% of invented cohorts at 5 x 2 against 75% at 10 x 10; docs/benchmarks.md),"
+                + " so a p above alpha will not mean 'no difference'. Bouckaert & "
+                + "Frank (2004) recommend 10 repeats of 10-fold cross-validation: set validation.outer.folds: "
+                + CorrectedTTest.RECOMMENDED_FOLDS + " (at most the smallest group) and validation.outer.repeats: "
+                + CorrectedTTest.RECOMMENDED_REPEATS + "\n";
     }
 
     /** Features per subject above which Smile's forest is flagged (measured, docs/benchmarks.md). */

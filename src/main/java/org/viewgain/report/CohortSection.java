@@ -40,6 +40,7 @@ final class CohortSection {
         boolean targets = subjects.stream().anyMatch(r -> r.s("has_target").equals("yes"));
         b.append(flow(subjects.size(), groups, targets));
         b.append(groupTable(groups, sites, targets));
+        b.append(MissingSection.html(d));
         b.append("<h3 id=\"flow\">Who entered which feature set</h3>\n").append(FlowTable.html(d, groups));
         List<String> dups = new ArrayList<>();
         seen.forEach((id, k) -> {
@@ -50,7 +51,9 @@ final class CohortSection {
         b.append("<h3>Checks</h3>\n<ul class=\"checks\">\n");
         b.append(dups.isEmpty() ? "<li class=\"ok\">No duplicate subject ids in the fold plan.</li>\n"
                 : "<li class=\"warn\">Duplicate subject ids: " + Html.esc(String.join(", ", dups)) + ".</li>\n");
-        for (String w : warnings(groups, sites, targets)) {
+        List<String> all = new ArrayList<>(warnings(groups, sites, targets));
+        all.addAll(MissingSection.warnings(d));
+        for (String w : all) {
             b.append("<li class=\"warn\">").append(Html.esc(w)).append("</li>\n");
         }
         return b.append("</ul>\n</section>\n").toString();

@@ -11,7 +11,15 @@ final class Names {
             "mcnemar-exact", "McNemar exact test", "mcnemar-mid-p", "McNemar mid-p test", "delong", "DeLong test",
             "bayes-correlated-t", "Bayesian correlated t-test");
 
+    private static final Map<String, String> QUANTITIES = Map.of("mean-over-folds", "mean over outer folds",
+            "first-repeat-pooled", "repeat 1, pooled", "repeat-averaged-scores", "scores averaged over repeats");
+
     private Names() {
+    }
+
+    /** What a comparison row's estimates are of (the {@code quantity} column); empty for older run folders. */
+    static String quantity(String q) {
+        return QUANTITIES.getOrDefault(q, q);
     }
 
     static String metric(String m) {

@@ -34,6 +34,7 @@ final class ReportData {
     final CsvRows imputationEdges;
     final CsvRows confusion;
     final CsvRows cohortFlow;
+    final CsvRows missingness;
     final Redactor redact;
 
     private ReportData(Path dir, boolean redactIds) throws IOException {
@@ -64,6 +65,7 @@ final class ReportData {
         imputationEdges = CsvRows.readIfPresent(dir, "imputation_edges.csv");
         confusion = CsvRows.readIfPresent(dir, "confusion.csv");
         cohortFlow = CsvRows.readIfPresent(dir, "cohort_flow.csv");
+        missingness = CsvRows.readIfPresent(dir, "missingness.csv");
         redact = new Redactor(redactIds, subjectIds());
     }
 

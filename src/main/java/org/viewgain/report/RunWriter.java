@@ -33,6 +33,10 @@ public final class RunWriter {
         folder.write("importance.csv", ResultTables.importance(
                 org.viewgain.engine.Importance.rows(res.experiment(), res.importance())));
         folder.write("duplicates.csv", ResultTables.duplicates(res));
+        List<MissingTargets.Row> missing = MissingTargets.of(res.experiment());
+        if (!missing.isEmpty()) {
+            folder.write("missingness.csv", MissingTargets.table(missing));
+        }
         if (res.experiment().spec().cohort().site() != null) {
             folder.write("site_metrics.csv", ResultTables.siteMetrics(res));
         }

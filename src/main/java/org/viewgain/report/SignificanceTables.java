@@ -34,13 +34,13 @@ public final class SignificanceTables {
 
     public static CsvTable comparisons(List<Comparisons.Row> rows) {
         CsvTable t = new CsvTable("comparison", "imputer_a", "feature_set_a", "classifier_a", "imputer_b",
-                "feature_set_b", "classifier_b", "n", "test", "metric", "estimate_a", "estimate_b", "difference",
-                "ci_low", "ci_high", "statistic", "p_value", "p_adjusted", "adjust_method", "prob_a_better",
+                "feature_set_b", "classifier_b", "n", "test", "metric", "quantity", "estimate_a", "estimate_b",
+                "difference", "ci_low", "ci_high", "statistic", "p_value", "p_adjusted", "adjust_method", "prob_a_better",
                 "prob_equivalent", "prob_b_better", "rope");
         for (Comparisons.Row r : rows) {
             t.row().text(r.comparison()).text(r.a().imputer()).text(r.a().featureSet().label()).text(r.a().classifier())
                     .text(r.b().imputer()).text(r.b().featureSet().label()).text(r.b().classifier()).integer(r.n())
-                    .text(r.test()).text(r.metric()).number(r.estimateA()).number(r.estimateB())
+                    .text(r.test()).text(r.metric()).text(r.quantity()).number(r.estimateA()).number(r.estimateB())
                     .number(r.difference()).number(r.ciLow()).number(r.ciHigh()).number(r.statistic())
                     .number(r.pValue()).number(r.pAdjusted()).text(r.adjustMethod()).number(r.probABetter())
                     .number(r.probEquivalent()).number(r.probBBetter()).number(r.rope());

@@ -77,6 +77,9 @@ class HtmlReportTest {
                     && c.s("metric").equals(tr.attr("data-metric")));
             assertEquals(1, match.size(), tr.toString());
             CsvRows.Row c = match.get(0);
+            // the metric cell names the quantity the row's numbers are of (comparisons.csv, column quantity)
+            assertTrue(!c.s("quantity").isEmpty() && tr.select("td").get(1).text()
+                    .contains(Names.quantity(c.s("quantity"))), tr.toString());
             int nonEmpty = 0;
             for (String col : List.of("estimate_a", "estimate_b", "difference", "ci_low", "ci_high", "p_value",
                     "p_adjusted", "prob_a_better", "prob_equivalent", "prob_b_better")) {
@@ -99,6 +102,30 @@ class HtmlReportTest {
         String first = doc.select("#answer-forest ul.verdicts li").first().text();
         assertTrue(first.contains("source+imputed (ridge) is "), first);
         assertTrue(first.contains("probability that A is better 0.610"), first);
+        assertTrue(first.contains("balanced accuracy (mean over outer folds)"), first);
+        assertTrue(first.contains("AUC (scores averaged over repeats)"), first);
+    }
+
+    @Test
+    void givenComparisonsWithoutQuantityColumn_whenReported_thenRenderedWithoutQuantityWords() throws IOException {
+        // run folders written before comparisons.csv had a quantity column are still read
+        Path r = fullRun();
+        Path csv = r.resolve("comparisons.csv");
+        List<String> lines = Files.readAllLines(csv);
+        int q = List.of(lines.get(0).split(",", -1)).indexOf("quantity");
+        StringBuilder old = new StringBuilder();
+        for (String line : lines) {
+            List<String> cells = new java.util.ArrayList<>(List.of(line.split(",", -1)));
+            cells.remove(q);
+            old.append(String.join(",", cells)).append('\n');
+        }
+        Files.writeString(csv, old);
+        Document doc = Jsoup.parse(HtmlReport.render(r, false));
+        String answer = doc.getElementById("answer").text();
+        assertTrue(answer.contains("balanced accuracy "), answer);
+        assertTrue(!answer.contains("mean over outer folds") && !answer.contains("()"), answer);
+        assertEquals(CsvRows.readIfPresent(r, "comparisons.csv").rows().size(),
+                doc.select("#answer table.answer tr[data-test]").size());
     }
 
     /** The permutation p shown in a badge is that of one of the two pipelines of the row. */

@@ -76,7 +76,7 @@ final class ReportFixtures {
     static void comparisons(Path run) throws IOException {
         CsvRows m = CsvRows.readIfPresent(run, "metrics.csv");
         StringBuilder b = new StringBuilder("comparison,imputer_a,feature_set_a,classifier_a,imputer_b,feature_set_b,"
-                + "classifier_b,n,test,metric,estimate_a,estimate_b,difference,ci_low,ci_high,statistic,p_value,"
+                + "classifier_b,n,test,metric,quantity,estimate_a,estimate_b,difference,ci_low,ci_high,statistic,p_value,"
                 + "p_adjusted,adjust_method,prob_a_better,prob_equivalent,prob_b_better,rope\n");
         int k = 0;
         for (String c : List.of("forest", "svm")) {
@@ -86,8 +86,10 @@ final class ReportFixtures {
                 // A is planted 0.05 above B's real estimate, so that every invented verdict has a direction
                 double a = s + 0.05;
                 double p = k == 0 ? 0.00042 : 0.0371 * (k + 1);
+                String quantity = t[0].equals("delong") ? "repeat-averaged-scores" : t[0].equals("mcnemar-exact")
+                        ? "first-repeat-pooled" : "mean-over-folds";
                 String pre = String.format(Locale.ROOT, "source+imputed vs source,ridge,source+imputed,%s,none,"
-                        + "source,%s,40,%s,%s,%s,%s,%s,", c, c, t[0], t[1], CsvTable.formatNumber(a),
+                        + "source,%s,40,%s,%s,%s,%s,%s,%s,", c, c, t[0], t[1], quantity, CsvTable.formatNumber(a),
                         CsvTable.formatNumber(s), CsvTable.formatNumber(a - s));
                 if (t[0].equals("bayes-correlated-t")) {
                     b.append(pre).append(",,,,,,0.61,0.27,0.12,0.01\n");
