@@ -3,6 +3,7 @@ package org.viewgain.cli;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Path;
+import java.nio.file.Files;
 import java.time.Duration;
 import java.time.Instant;
 import java.util.ArrayList;
@@ -21,6 +22,7 @@ import org.viewgain.engine.Runner;
 import org.viewgain.engine.Setup;
 import org.viewgain.engine.Shard;
 import org.viewgain.report.HtmlReport;
+import org.viewgain.report.Verdict;
 import org.viewgain.report.Provenance;
 import org.viewgain.report.RunFolder;
 import org.viewgain.report.RunWriter;
@@ -208,6 +210,15 @@ final class RunCommand implements Callable<Integer> {
                     + "'viewgain report " + folder.dir() + "'");
         }
         out.print(SummaryTable.text(metrics));
+        try {
+            out.println("answer: " + Verdict.of(folder.dir()));
+        } catch (IOException | RuntimeException e) {
+            err.println("[viewgain] the one-sentence answer could not be formed (" + e.getMessage() + ")");
+        }
+        Path report = folder.dir().resolve("report.html");
+        if (Files.isRegularFile(report)) {
+            out.println("report: " + report);
+        }
         out.println("results: " + folder.dir());
         out.flush();
         return 0;

@@ -26,6 +26,9 @@ final class AnswerSection {
         b.append("<p class=\"lead\">Does adding the imputed target view to the source view tell the groups apart "
                 + "better than the source view alone, and better than chance? A is the first pipeline of each "
                 + "comparison, B the second; a positive difference favours A.</p>\n");
+        b.append("<p class=\"verdict\" id=\"verdict\"><strong>In one sentence:</strong> ")
+                .append(Html.esc(Verdict.of(d))).append(" Intervals are unadjusted; p-values of comparisons are "
+                        + "adjusted across comparisons as the spec asks (significance.adjust).</p>\n");
         Chance chance = new Chance(d);
         if (d.comparisons != null) {
             fromComparisons(d, chance, b);

@@ -26,6 +26,7 @@ final class Style {
             h2 { font-size: 1.3rem; margin: 1.1rem 0 .6rem; color: var(--teal); }
             h3 { font-size: 1.05rem; margin: 1.1rem 0 .45rem; }
             p.lead { font-size: 1.02rem; }
+            p.verdict { font-size: 1.05rem; border-left: 4px solid #4a6fa5; padding: .3rem .7rem; background: #f3f6fb; }
             .small { font-size: .8rem; color: var(--muted); }
             p.absent { background: var(--band); border-left: 4px solid #9aa5af; padding: .45rem .8rem;
                        color: var(--muted); }
