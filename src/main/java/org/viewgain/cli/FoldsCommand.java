@@ -85,7 +85,7 @@ final class FoldsCommand implements Callable<Integer> {
         for (int r = 0; r < ex.plan().repeats(); r++) {
             for (int i = 0; i < d.n(); i++) {
                 t.row().integer(r + 1).text(d.id(i)).integer(ex.plan().foldOf(r, i) + 1)
-                        .text(d.hasTarget(i) ? "yes" : "no");
+                        .text(d.hasTarget(i) ? "true" : "false");
             }
         }
         return t;

@@ -31,13 +31,13 @@ final class CohortSection {
         for (CsvRows.Row r : subjects) {
             int[] c = groups.computeIfAbsent(r.s("group"), k -> new int[2]);
             c[0]++;
-            c[1] += r.s("has_target").equals("yes") ? 1 : 0;
+            c[1] += hasTarget(r) ? 1 : 0;
             if (!r.s("site").isEmpty()) {
                 sites.computeIfAbsent(r.s("site"), k -> new LinkedHashMap<>()).merge(r.s("group"), 1, Integer::sum);
             }
             seen.merge(r.s("subject"), 1, Integer::sum);
         }
-        boolean targets = subjects.stream().anyMatch(r -> r.s("has_target").equals("yes"));
+        boolean targets = subjects.stream().anyMatch(CohortSection::hasTarget);
         b.append(flow(subjects.size(), groups, targets));
         b.append(groupTable(groups, sites, targets));
         b.append(MissingSection.html(d));
@@ -150,5 +150,10 @@ final class CohortSection {
             }
         }
         return out;
+    }
+
+    /** folds.csv's has_target: true/false, or yes/no in runs written before the tables used true/false. */
+    static boolean hasTarget(CsvRows.Row r) {
+        return r.s("has_target").equals("true") || r.s("has_target").equals("yes");
     }
 }

@@ -23,7 +23,7 @@ public final class ResultTables {
             for (int i = 0; i < plan.size(); i++) {
                 var s = ex.data().subjects().get(i);
                 t.row().integer(r + 1).text(s.id()).text(s.group()).text(s.site() == null ? "" : s.site())
-                        .integer(plan.foldOf(r, i) + 1).text(ex.data().hasTarget(i) ? "yes" : "no");
+                        .integer(plan.foldOf(r, i) + 1).text(ex.data().hasTarget(i) ? "true" : "false");
             }
         }
         return t;

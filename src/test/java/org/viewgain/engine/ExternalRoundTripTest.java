@@ -223,13 +223,13 @@ class ExternalRoundTripTest {
             assertEquals("0", c[3]);
             boolean inTest = foldOf.get(c[0] + "/" + c[4]).equals(c[1]);
             if (c[5].equals("train")) {
-                assertTrue(!inTest && hasTarget.get(c[4]).equals("yes"), String.join(",", c));
+                assertTrue(!inTest && hasTarget.get(c[4]).equals("true"), String.join(",", c));
             } else {
-                assertTrue(inTest || hasTarget.get(c[4]).equals("no"), String.join(",", c));
+                assertTrue(inTest || hasTarget.get(c[4]).equals("false"), String.join(",", c));
                 imputed++;
             }
         }
-        long withoutTarget = hasTarget.values().stream().filter("no"::equals).count();
+        long withoutTarget = hasTarget.values().stream().filter("false"::equals).count();
         // per repeat: every subject once as a test subject, plus each one without a target in the 3 other folds
         assertEquals(2 * (40 + 3 * withoutTarget), imputed);
     }
