@@ -38,6 +38,16 @@ final class Html {
     }
 
     /** Three decimals, or a dash when missing. */
+    /** An ISO-8601 instant from run.json shown to the second, e.g. {@code 2026-12-03 06:40:32 UTC}; other text as is. */
+    static String time(String iso) {
+        try {
+            java.time.Instant t = java.time.Instant.parse(iso).truncatedTo(java.time.temporal.ChronoUnit.SECONDS);
+            return t.toString().replace('T', ' ').replace("Z", " UTC");
+        } catch (java.time.format.DateTimeParseException e) {
+            return iso;
+        }
+    }
+
     static String f3(double v) {
         return Double.isFinite(v) ? String.format(Locale.ROOT, "%.3f", v) : "\u2013";
     }

@@ -71,7 +71,7 @@ public final class HtmlReport {
     private static String header(ReportData d, String experiment) {
         StringBuilder b = new StringBuilder("<header class=\"top\"><h1>")
                 .append(Html.esc(experiment)).append("</h1><div class=\"meta\">")
-                .append(Html.esc("run " + d.runId() + " \u00b7 started " + d.run.path("started_at").asText("?")
+                .append(Html.esc("run " + d.runId() + " \u00b7 started " + Html.time(d.run.path("started_at").asText("?"))
                         + " \u00b7 viewgain " + d.run.path("tool_version").asText("?") + " \u00b7 seed "
                         + d.run.path("seed").asText("?")
                         + (d.run.has("subjects") ? " \u00b7 " + d.run.path("subjects").asText() + " subjects" : "")

@@ -73,8 +73,8 @@ final class ProtocolSection {
         m.put("libraries", String.join(", ", libs));
         m.put("seed", r.path("seed").asText());
         m.put("threads", r.path("threads").asText());
-        m.put("started", r.path("started_at").asText());
-        m.put("finished", r.path("finished_at").asText("(not finished)"));
+        m.put("started", Html.time(r.path("started_at").asText()));
+        m.put("finished", Html.time(r.path("finished_at").asText("(not finished)")));
         m.put("elapsed", r.has("elapsed_seconds") ? r.path("elapsed_seconds").asText() + " s" : "");
         m.put("subjects", r.path("subjects").asText(""));
         m.put("pipelines", r.path("pipelines").asText(""));

@@ -34,6 +34,10 @@ final class Redactor {
         anyId = on && alt.length() > 0 ? Pattern.compile(alt.toString()) : null;
     }
 
+    /** The folder part of an absolute path (POSIX, or a Windows drive or share), up to its last separator. */
+    private static final Pattern ABSOLUTE_DIRS = Pattern.compile(
+            "(?<![\\w.~])(?:/|[A-Za-z]:[\\\\/]|\\\\\\\\)(?:[^\\s/\\\\\"'<>|,;]+[/\\\\])+");
+
     boolean on() {
         return on;
     }
@@ -46,9 +50,17 @@ final class Redactor {
         return pseudonyms.computeIfAbsent(id, k -> String.format(Locale.ROOT, "subject-%04d", pseudonyms.size() + 1));
     }
 
-    /** Free text (paths, spec text, reasons) with every occurrence of a known id replaced by its pseudonym. */
+    /**
+     * Free text (paths, spec text, reasons) with every occurrence of a known id replaced by its pseudonym and the
+     * folders of absolute paths replaced by an ellipsis.
+     */
     String text(String s) {
-        if (anyId == null || s == null) {
+        if (!on || s == null) {
+            return s;
+        }
+        // folders of absolute paths can name a person or an institution: keep the file name only
+        s = ABSOLUTE_DIRS.matcher(s).replaceAll("\u2026/");
+        if (anyId == null) {
             return s;
         }
         Matcher m = anyId.matcher(s);

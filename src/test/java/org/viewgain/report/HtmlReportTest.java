@@ -162,6 +162,17 @@ class HtmlReportTest {
     }
 
     @Test
+    void givenAnyRun_whenReported_thenTimesAreShownToTheSecond() throws IOException {
+        String html = HtmlReport.render(fullRun(), false);
+        // run.json keeps the instant with its fraction; the report shows it to the second, in UTC
+        assertTrue(java.util.regex.Pattern.compile("started \\d{4}-\\d\\d-\\d\\d \\d\\d:\\d\\d:\\d\\d UTC")
+                .matcher(html).find());
+        assertFalse(java.util.regex.Pattern.compile("\\d\\d:\\d\\d:\\d\\d\\.\\d").matcher(html).find(),
+                "no fractions of a second");
+        assertEquals("2026-12-03 06:40:32 UTC", Html.time("2026-12-03T06:40:32.123456Z"));
+    }
+
+    @Test
     void givenAnyRun_whenReported_thenNoExternalAddressNoScriptAndOneFile() throws IOException {
         String html = HtmlReport.render(fullRun(), false);
         Document doc = Jsoup.parse(html);

@@ -28,6 +28,17 @@ class RedactorTest {
     }
 
     @Test
+    void givenAbsolutePaths_whenRedacted_thenOnlyFileNamesRemainAndRelativePathsAreKept() {
+        Redactor r = new Redactor(true, List.of("P12"));
+        assertEquals("spec \u2026/demo.yaml; views \u2026/P12.csv".replace("P12", "subject-0001"),
+                r.text("spec /home/dr-someone/clinic-x/demo.yaml; views /data/site-a/P12.csv"));
+        assertEquals("\u2026/cohort.csv", r.text("C:\\Users\\someone\\cohort.csv"));
+        assertEquals("../demo-data/views/{subject}.csv", r.text("../demo-data/views/{subject}.csv"));
+        // without --redact-ids nothing changes
+        assertEquals("/home/dr-someone/demo.yaml", new Redactor(false, List.of()).text("/home/dr-someone/demo.yaml"));
+    }
+
+    @Test
     void givenBase64ThatContainsAnId_whenScrubbed_thenIdGoneAndBytesUnchangedAfterWhitespaceRemoval() {
         byte[] bytes = new byte[300];
         for (int i = 0; i < bytes.length; i++) {
