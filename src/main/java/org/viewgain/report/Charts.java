@@ -24,9 +24,17 @@ final class Charts {
         System.setProperty("java.awt.headless", "true");
     }
 
-    /** The report's palette: teal, amber, plum, slate, brick, moss, sand, steel. */
-    static final Color[] PALETTE = {new Color(0x1F7A72), new Color(0xD98E04), new Color(0x7B4B94),
-        new Color(0x3E5C76), new Color(0xB5443A), new Color(0x6A8D2F), new Color(0xA68A64), new Color(0x5C7C99)};
+    /**
+     * The report's palette for series, safe for the common colour-vision deficiencies (Okabe &amp; Ito 2008, "Color
+     * universal design"): blue, vermillion, bluish green, reddish purple, orange, sky blue, black, and a grey in
+     * place of their yellow, which is too pale on white. Line charts also give each series its own dash pattern
+     * ({@link #line}), so they read without colour too.
+     */
+    static final Color[] PALETTE = {new Color(0x0072B2), new Color(0xD55E00), new Color(0x009E73),
+        new Color(0xCC79A7), new Color(0xE69F00), new Color(0x56B4E9), new Color(0x000000), new Color(0x7F7F7F)};
+    /** Dash patterns of line series, in series order: solid, long dashes, dots, dash-dot, and so on. */
+    private static final float[][] DASHES = {null, {9f, 4f}, {2f, 3f}, {9f, 3f, 2f, 3f}, {14f, 4f}, {5f, 5f},
+        {2f, 3f, 2f, 3f, 9f, 3f}, {1f, 6f}};
     static final Color INK = new Color(0x22303C);
     static final Color GRID = new Color(0xDDE3E8);
     static final Color CHANCE = new Color(0x9AA5AF);
@@ -43,6 +51,13 @@ final class Charts {
 
     static BasicStroke stroke(float width) {
         return new BasicStroke(width, BasicStroke.CAP_ROUND, BasicStroke.JOIN_ROUND);
+    }
+
+    /** The stroke of line series i: its own dash pattern (see {@link #DASHES}), solid for the first. */
+    static BasicStroke line(int i, float width) {
+        float[] dash = DASHES[Math.floorMod(i, DASHES.length)];
+        return dash == null ? stroke(width)
+                : new BasicStroke(width, BasicStroke.CAP_BUTT, BasicStroke.JOIN_ROUND, 10f, dash, 0f);
     }
 
     static BasicStroke dashed(float width) {

@@ -44,7 +44,8 @@ final class ImportanceChart {
             String caption = "Top " + top.size() + " features of " + Names.pipeline(first.s("imputer"),
                     first.s("feature_set"), first.s("classifier")) + " by " + first.s("kind")
                     + " (colour: the view each feature comes from).";
-            b.append(Charts.figure(() -> chart(top), 480, 120 + 22 * top.size(), caption, d.redact));
+            String axis = axis(first.s("kind"));
+            b.append(Charts.figure(() -> chart(top, axis), 480, 120 + 22 * top.size(), caption, d.redact));
         }
         b.append("</div>\n");
         if (keys.size() > MAX_CHARTS) {
@@ -59,7 +60,17 @@ final class ImportanceChart {
         return seen.get(r.s("feature")) > 1 ? r.s("feature") + " (" + r.s("view") + ")" : r.s("feature");
     }
 
-    private static JFreeChart chart(List<CsvRows.Row> top) {
+    /** The value axis with its unit, by the kind of importance (importance.csv {@code kind}). */
+    static String axis(String kind) {
+        return switch (kind) {
+            case "impurity" -> "Gini impurity decrease (weighted by rows, summed over trees; mean over outer folds)";
+            case "abs_weight" -> "|weight| x training SD of the input (standardized units; mean over outer folds)";
+            case "selection_frequency" -> "fraction of outer folds in which the feature was selected (0-1)";
+            default -> "importance (" + kind + ")";
+        };
+    }
+
+    private static JFreeChart chart(List<CsvRows.Row> top, String axis) {
         DefaultCategoryDataset data = new DefaultCategoryDataset();
         Map<String, Integer> seen = new LinkedHashMap<>();
         top.forEach(r -> seen.merge(r.s("feature"), 1, Integer::sum));
@@ -81,7 +92,7 @@ final class ImportanceChart {
         }
         CategoryAxis features = new CategoryAxis(null);
         features.setMaximumCategoryLabelWidthRatio(0.45f);
-        CategoryPlot plot = new CategoryPlot(data, features, new NumberAxis("importance"), renderer);
+        CategoryPlot plot = new CategoryPlot(data, features, new NumberAxis(axis), renderer);
         plot.setOrientation(PlotOrientation.HORIZONTAL);
         return new JFreeChart(null, Charts.LABEL, plot, true);
     }

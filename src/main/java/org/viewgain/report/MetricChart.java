@@ -87,7 +87,9 @@ final class MetricChart {
         renderer.setDefaultLinesVisible(false);
         for (int k = 0; k < 2; k++) {
             renderer.setSeriesPaint(k, Charts.color(k));
-            renderer.setSeriesShape(k, new java.awt.geom.Ellipse2D.Double(-4, -4, 8, 8));
+            // a circle and a square, so the two series read without colour
+            renderer.setSeriesShape(k, k == 0 ? new java.awt.geom.Ellipse2D.Double(-4, -4, 8, 8)
+                    : new java.awt.geom.Rectangle2D.Double(-4, -4, 8, 8));
         }
         XYPlot plot = new XYPlot(data, pipelines, value, renderer);
         plot.setOrientation(PlotOrientation.HORIZONTAL);

@@ -69,7 +69,9 @@ final class PredictionCharts {
         StringBuilder b = new StringBuilder("<div class=\"grid\">");
         pooled.forEach((c, pipes) -> b.append(Charts.figure(() -> rocChart(pipes), 480, 420, "ROC curves of "
                 + c + " per feature set: out-of-fold scores of all repeats pooled (positive group: " + d.positive()
-                + "); the area in the legend is that of the pooled curve.", d.redact)));
+                + "); the area in the legend is that of the pooled curve, so it can differ slightly from metrics.csv "
+                + "(each repeat's AUC, averaged) and from the answer's DeLong test (AUC of repeat-averaged scores); "
+                + "each feature set has its own colour and line pattern.", d.redact)));
         return b.append("</div>\n").toString();
     }
 
@@ -77,8 +79,8 @@ final class PredictionCharts {
         XYSeriesCollection data = new XYSeriesCollection();
         for (Pooled p : pipes.values()) {
             double[][] curve = Curves.roc(p.scores(), p.positives());
-            XYSeries s = new XYSeries(String.format(Locale.ROOT, "%s (%.3f)", p.label, Curves.area(curve)), false,
-                    true);
+            XYSeries s = new XYSeries(String.format(Locale.ROOT, "%s (pooled AUC %.3f, %d scores)", p.label,
+                    Curves.area(curve), p.score.size()), false, true);
             for (int i = 0; i < curve[0].length; i++) {
                 s.add(curve[0][i], curve[1][i]);
             }
@@ -91,7 +93,7 @@ final class PredictionCharts {
         XYLineAndShapeRenderer r = new XYLineAndShapeRenderer(true, false);
         for (int i = 0; i < pipes.size(); i++) {
             r.setSeriesPaint(i, Charts.color(i));
-            r.setSeriesStroke(i, Charts.stroke(2f));
+            r.setSeriesStroke(i, Charts.line(i, 2f));
         }
         r.setSeriesPaint(pipes.size(), Charts.CHANCE);
         r.setSeriesStroke(pipes.size(), Charts.dashed(1.2f));
@@ -171,7 +173,7 @@ final class PredictionCharts {
         XYLineAndShapeRenderer r = new XYLineAndShapeRenderer(true, true);
         for (int i = 0; i < pipes.size(); i++) {
             r.setSeriesPaint(i, Charts.color(i));
-            r.setSeriesStroke(i, Charts.stroke(1.8f));
+            r.setSeriesStroke(i, Charts.line(i, 1.8f));
             r.setSeriesShape(i, new Ellipse2D.Double(-3, -3, 6, 6));
         }
         r.setSeriesPaint(pipes.size(), Charts.CHANCE);
