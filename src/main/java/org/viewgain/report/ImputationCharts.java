@@ -31,7 +31,7 @@ final class ImputationCharts {
         }
         Map<String, double[]> by = new LinkedHashMap<>();
         Map<String, Map<String, double[]>> perSubject = new LinkedHashMap<>();
-        String[] cols = {"mae", "rmse", "pearson_r", "strength_mae"};
+        String[] cols = {"mae", "rmse", "pearson_r", "strength_mae", "skill"};
         for (CsvRows.Row r : d.imputation.rows()) {
             double[] s = by.computeIfAbsent(r.s("imputer"), k -> new double[2 * cols.length]);
             for (int c = 0; c < cols.length; c++) {
@@ -66,8 +66,10 @@ final class ImputationCharts {
             rows.add(row);
         });
         return "<p>Error of the imputed target against the observed target, for test subjects whose target was "
-                + "observed, averaged over subjects and repeats.</p>\n" + Html.table("imputation", List.of("imputer",
-                "MAE", "RMSE", "Pearson r", "strength MAE", "largest MAE (subject)"), rows);
+                + "observed, averaged over subjects and repeats. Skill is 1 \u2212 MAE / MAE of the mean imputer "
+                + "(the training subjects' mean target) on the same subject: above 0 the imputer beats the mean, 0 "
+                + "is no better, below 0 worse.</p>\n" + Html.table("imputation", List.of("imputer", "MAE", "RMSE",
+                "Pearson r", "strength MAE", "skill vs mean", "largest MAE (subject)"), rows);
     }
 
     static String heatmaps(ReportData d) {

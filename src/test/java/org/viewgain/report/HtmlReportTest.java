@@ -162,6 +162,27 @@ class HtmlReportTest {
     }
 
     @Test
+    void givenImputations_whenReported_thenTheTableShowsSkillAgainstTheMeanImputerAsInTheCsv() throws IOException {
+        Path r = fullRun();
+        Document doc = Jsoup.parse(HtmlReport.render(r, false));
+        Element table = doc.selectFirst("table.imputation");
+        assertNotNull(table);
+        List<String> head = table.select("thead th").eachText();
+        int col = head.indexOf("skill vs mean");
+        assertTrue(col > 0, head.toString());
+        // the mean of imputation.csv's skill column for the fixture's one imputer (ridge), to 3 decimals
+        double sum = 0;
+        int n = 0;
+        for (CsvRows.Row row : CsvRows.readIfPresent(r, "imputation.csv").rows()) {
+            if (Double.isFinite(row.d("skill"))) {
+                sum += row.d("skill");
+                n++;
+            }
+        }
+        assertEquals(Html.f3(sum / n), table.select("tbody tr").get(0).select("td").get(col).text());
+    }
+
+    @Test
     void givenAnyRun_whenReported_thenTimesAreShownToTheSecond() throws IOException {
         String html = HtmlReport.render(fullRun(), false);
         // run.json keeps the instant with its fraction; the report shows it to the second, in UTC
