@@ -34,6 +34,15 @@ public interface ClassifierMethod {
     boolean producesScores();
 
     /**
+     * What the scores are, as predictions.csv's {@code score_kind} says: {@code probability} (class probabilities,
+     * which calibration measures apply to), {@code decision_value} (a signed margin that orders subjects but is not
+     * a probability), or {@code none} when the method gives labels only.
+     */
+    default String scoreKind() {
+        return producesScores() ? "probability" : "none";
+    }
+
+    /**
      * Trains a model.
      *
      * @param x       training rows (already scaled/selected by the pipeline)

@@ -61,6 +61,11 @@ public final class KernelSvm implements ClassifierMethod {
     }
 
     @Override
+    public String scoreKind() {
+        return "decision_value";
+    }
+
+    @Override
     public Model fit(FitContext ctx, Rows x, int[] y, int classes, Params params) {
         return fitGrid(List.of(ctx), x, y, classes, List.of(params)).get(0);
     }

@@ -48,6 +48,11 @@ public final class LinearSvm implements ClassifierMethod {
         return true;
     }
 
+    @Override
+    public String scoreKind() {
+        return "decision_value";
+    }
+
     /** A fitted machine: weights of the inputs and the intercept. */
     record Machine(double[] w, double b, int passes, boolean converged) {
         double decision(double[] row) {

@@ -47,6 +47,11 @@ public final class SmileSvm implements ClassifierMethod {
         return true;
     }
 
+    @Override
+    public String scoreKind() {
+        return "decision_value";
+    }
+
     /** The gamma a parameter value stands for on these training rows. */
     static double gamma(Object setting, double[][] x) {
         if (setting instanceof Number n) {

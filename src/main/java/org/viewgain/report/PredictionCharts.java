@@ -118,7 +118,11 @@ final class PredictionCharts {
         List<String> notProb = new ArrayList<>();
         StringBuilder charts = new StringBuilder("<div class=\"grid\">");
         pooled.forEach((c, pipes) -> {
-            boolean all = pipes.values().stream().allMatch(p -> Curves.probabilities(p.scores()));
+            // predictions.csv says what the scores are; runs written before it did are judged by the scores' range
+            boolean all = d.predictions.has("score_kind")
+                    ? d.predictions.rows().stream().filter(r -> r.s("classifier").equals(c))
+                            .allMatch(r -> r.s("score_kind").equals("probability"))
+                    : pipes.values().stream().allMatch(p -> Curves.probabilities(p.scores()));
             if (!all) {
                 double lo = pipes.values().stream().flatMap(p -> p.score.stream()).mapToDouble(x -> x).min()
                         .orElse(Double.NaN);

@@ -32,12 +32,13 @@ public final class ResultTables {
     public static CsvTable predictions(RunResults res) {
         List<String> groups = res.experiment().spec().cohort().groups();
         CsvTable t = new CsvTable("repeat", "fold", "subject", "imputer", "feature_set", "classifier", "truth",
-                "predicted", "score");
+                "predicted", "score", "score_kind");
         for (RunResults.Prediction p : res.predictions()) {
             t.row().integer(p.repeat() + 1).integer(p.fold() + 1).text(res.experiment().data().id(p.subject()))
                     .text(p.pipeline().imputer()).text(p.pipeline().featureSet().label())
                     .text(p.pipeline().classifier()).text(groups.get(p.truth())).text(groups.get(p.predicted()))
-                    .number(p.score());
+                    .number(p.score())
+                    .text(res.experiment().classifier(p.pipeline().classifier()).method().scoreKind());
         }
         return t;
     }

@@ -96,6 +96,11 @@ class GridSharingTest {
                     }
 
                     @Override
+                    public String scoreKind() {
+                        return d.scoreKind();
+                    }
+
+                    @Override
                     public Model fit(FitContext ctx, Rows x, int[] y, int classes, Params params) {
                         calls.add(new Call(ctx, x, 1));
                         return d.fit(ctx, x, y, classes, params);

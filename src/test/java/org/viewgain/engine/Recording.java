@@ -80,6 +80,11 @@ final class Recording implements Methods {
             }
 
             @Override
+            public String scoreKind() {
+                return d.scoreKind();
+            }
+
+            @Override
             public Model fit(FitContext ctx, Rows x, int[] y, int classes, Params params) {
                 fits.add(new Fit("classifier", ctx, x.ids(), y.clone()));
                 Model m = d.fit(ctx, x, y, classes, params);

@@ -162,6 +162,17 @@ class HtmlReportTest {
     }
 
     @Test
+    void givenAForestAndALinearSvm_whenPredictionsWritten_thenScoreKindSaysProbabilityOrDecisionValue()
+            throws IOException {
+        CsvRows p = CsvRows.readIfPresent(run, "predictions.csv");
+        assertTrue(p.rows().stream().filter(r -> r.s("classifier").equals("forest"))
+                .allMatch(r -> r.s("score_kind").equals("probability")));
+        assertTrue(p.rows().stream().filter(r -> r.s("classifier").equals("svm"))
+                .allMatch(r -> r.s("score_kind").equals("decision_value")));
+        assertTrue(p.rows().stream().anyMatch(r -> r.s("classifier").equals("svm")));
+    }
+
+    @Test
     void givenImputations_whenReported_thenTheTableShowsSkillAgainstTheMeanImputerAsInTheCsv() throws IOException {
         Path r = fullRun();
         Document doc = Jsoup.parse(HtmlReport.render(r, false));
