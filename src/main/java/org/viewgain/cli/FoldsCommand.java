@@ -78,9 +78,9 @@ final class FoldsCommand implements Callable<Integer> {
         Files.createDirectories(dir);
     }
 
-    /** repeat, subject, fold, has_target: the outer fold plan (repeats and folds from 1). */
+    /** repetition, subject, fold, has_target: the outer fold plan (repeats and folds from 1). */
     static CsvTable folds(Experiment ex) {
-        CsvTable t = new CsvTable("repeat", "subject", "fold", "has_target");
+        CsvTable t = new CsvTable("repetition", "subject", "fold", "has_target");
         StudyData d = ex.data();
         for (int r = 0; r < ex.plan().repeats(); r++) {
             for (int i = 0; i < d.n(); i++) {
@@ -91,9 +91,9 @@ final class FoldsCommand implements Callable<Integer> {
         return t;
     }
 
-    /** repeat, fold, task, inner, subject, role: one row per subject a task trains on or imputes. */
+    /** repetition, fold, task, inner, subject, role: one row per subject a task trains on or imputes. */
     static CsvTable tasks(Experiment ex) {
-        CsvTable t = new CsvTable("repeat", "fold", "task", "inner", "subject", "role");
+        CsvTable t = new CsvTable("repetition", "fold", "task", "inner", "subject", "role");
         StudyData d = ex.data();
         for (int r = 0; r < ex.plan().repeats(); r++) {
             for (int f = 0; f < ex.plan().folds(r); f++) {

@@ -26,7 +26,7 @@ import org.viewgain.spec.BadInputException;
  * {@link BadInputException} naming the file and line.
  */
 final class ExternalImputations {
-    static final List<String> KEY_COLUMNS = List.of("repeat", "fold", "task", "inner", "subject");
+    static final List<String> KEY_COLUMNS = List.of("repetition", "fold", "task", "inner", "subject");
     static final String FINAL = "final";
     static final String CROSS_FIT = "cross-fit";
 
@@ -127,7 +127,8 @@ final class ExternalImputations {
             h.set(0, h.get(0).substring(1));
         }
         for (int c = 0; c < KEY_COLUMNS.size(); c++) {
-            if (c >= h.size() || !h.get(c).equals(KEY_COLUMNS.get(c))) {
+            // the first column was called 'repeat' before it was renamed; files written then are still read
+            if (c >= h.size() || !(h.get(c).equals(KEY_COLUMNS.get(c)) || c == 0 && h.get(c).equals("repeat"))) {
                 throw new BadInputException(file + ":1: column " + (c + 1) + " must be '" + KEY_COLUMNS.get(c)
                         + "', found " + (c < h.size() ? "'" + h.get(c) + "'" : "none") + "; the header is "
                         + String.join(",", KEY_COLUMNS) + ", then one column per target feature");
@@ -148,7 +149,7 @@ final class ExternalImputations {
     }
 
     private static Key key(Path file, int line, CSVRecord rec) {
-        int repeat = positive(file, line, "repeat", rec.get(0));
+        int repeat = positive(file, line, "repetition", rec.get(0));
         int fold = positive(file, line, "fold", rec.get(1));
         String task = rec.get(2).strip();
         String inner = rec.get(3).strip();

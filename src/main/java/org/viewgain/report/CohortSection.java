@@ -23,8 +23,8 @@ final class CohortSection {
             b.append(Html.notComputed("the cohort table", "folds.csv"));
             return b.append("</section>\n").toString();
         }
-        String firstRepeat = d.folds.rows().isEmpty() ? "1" : d.folds.rows().get(0).s("repeat");
-        List<CsvRows.Row> subjects = d.folds.where(r -> r.s("repeat").equals(firstRepeat));
+        String firstRepeat = d.folds.rows().isEmpty() ? "1" : d.folds.rows().get(0).s("repetition");
+        List<CsvRows.Row> subjects = d.folds.where(r -> r.s("repetition").equals(firstRepeat));
         Map<String, int[]> groups = new LinkedHashMap<>();
         Map<String, Map<String, Integer>> sites = new TreeMap<>();
         Map<String, Integer> seen = new LinkedHashMap<>();

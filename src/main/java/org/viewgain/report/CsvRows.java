@@ -104,6 +104,9 @@ final class CsvRows {
         /** The cell as text; empty when the column is absent. */
         String s(String column) {
             Integer c = index.get(column);
+            if (c == null && column.equals("repetition")) {
+                c = index.get("repeat"); // the column's name in runs written before it was renamed
+            }
             return c == null ? "" : cells[c];
         }
 

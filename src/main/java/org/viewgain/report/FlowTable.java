@@ -29,10 +29,10 @@ final class FlowTable {
             return Html.notComputed("the cohort flow table", "predictions.csv");
         }
         StringBuilder b = new StringBuilder();
-        String firstRepeat = d.predictions.rows().isEmpty() ? "1" : d.predictions.rows().get(0).s("repeat");
+        String firstRepeat = d.predictions.rows().isEmpty() ? "1" : d.predictions.rows().get(0).s("repetition");
         Map<String, Map<String, Set<String>>> in = new LinkedHashMap<>();
         for (CsvRows.Row r : d.predictions.rows()) {
-            if (r.s("repeat").equals(firstRepeat)) {
+            if (r.s("repetition").equals(firstRepeat)) {
                 in.computeIfAbsent(r.s("feature_set") + "|" + r.s("imputer"), k -> new LinkedHashMap<>())
                         .computeIfAbsent(r.s("truth"), k -> new HashSet<>()).add(r.s("subject"));
             }

@@ -29,10 +29,10 @@ final class Power {
         Set<String> repeats = new HashSet<>();
         Set<String> folds = new HashSet<>();
         if (d.folds != null && !d.folds.rows().isEmpty()) {
-            String first = d.folds.rows().get(0).s("repeat");
+            String first = d.folds.rows().get(0).s("repetition");
             for (CsvRows.Row r : d.folds.rows()) {
-                repeats.add(r.s("repeat"));
-                if (r.s("repeat").equals(first)) {
+                repeats.add(r.s("repetition"));
+                if (r.s("repetition").equals(first)) {
                     folds.add(r.s("fold"));
                 }
             }

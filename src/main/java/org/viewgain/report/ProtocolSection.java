@@ -48,7 +48,7 @@ final class ProtocolSection {
         b.append("</p>\n");
         if (d.folds != null) {
             Map<String, Map<String, Integer>> sizes = new TreeMap<>();
-            d.folds.rows().forEach(r -> sizes.computeIfAbsent(r.s("repeat"), k -> new TreeMap<>())
+            d.folds.rows().forEach(r -> sizes.computeIfAbsent(r.s("repetition"), k -> new TreeMap<>())
                     .merge(r.s("fold"), 1, Integer::sum));
             List<List<String>> rows = new ArrayList<>();
             sizes.forEach((rep, m) -> rows.add(List.of(Html.esc(rep), Html.esc(String.valueOf(m.size())),

@@ -18,7 +18,7 @@ public final class ResultTables {
     public static CsvTable folds(RunResults res) {
         Experiment ex = res.experiment();
         FoldPlan plan = res.plan();
-        CsvTable t = new CsvTable("repeat", "subject", "group", "site", "fold", "has_target");
+        CsvTable t = new CsvTable("repetition", "subject", "group", "site", "fold", "has_target");
         for (int r = 0; r < plan.repeats(); r++) {
             for (int i = 0; i < plan.size(); i++) {
                 var s = ex.data().subjects().get(i);
@@ -31,7 +31,7 @@ public final class ResultTables {
 
     public static CsvTable predictions(RunResults res) {
         List<String> groups = res.experiment().spec().cohort().groups();
-        CsvTable t = new CsvTable("repeat", "fold", "subject", "imputer", "feature_set", "classifier", "truth",
+        CsvTable t = new CsvTable("repetition", "fold", "subject", "imputer", "feature_set", "classifier", "truth",
                 "predicted", "score", "score_kind");
         for (RunResults.Prediction p : res.predictions()) {
             t.row().integer(p.repeat() + 1).integer(p.fold() + 1).text(res.experiment().data().id(p.subject()))
@@ -55,7 +55,7 @@ public final class ResultTables {
     }
 
     public static CsvTable foldMetrics(List<Evaluation.FoldMetricRow> rows) {
-        CsvTable t = new CsvTable("imputer", "feature_set", "classifier", "repeat", "fold", "metric", "value", "n");
+        CsvTable t = new CsvTable("imputer", "feature_set", "classifier", "repetition", "fold", "metric", "value", "n");
         for (Evaluation.FoldMetricRow m : rows) {
             t.row().text(m.pipeline().imputer()).text(m.pipeline().featureSet().label()).text(m.pipeline().classifier())
                     .integer(m.repeat() + 1).integer(m.fold() + 1).text(m.metric()).number(m.value()).integer(m.n());
@@ -64,7 +64,7 @@ public final class ResultTables {
     }
 
     public static CsvTable hyperparameters(RunResults res) {
-        CsvTable t = new CsvTable("repeat", "fold", "stage", "imputer", "feature_set", "classifier", "chosen",
+        CsvTable t = new CsvTable("repetition", "fold", "stage", "imputer", "feature_set", "classifier", "chosen",
                 "inner_score", "tuned_by", "grid_size", "unconverged_fits");
         String tuneBy = res.experiment().spec().validation().tuneBy();
         for (RunResults.Choice c : res.choices()) {
@@ -78,7 +78,7 @@ public final class ResultTables {
 
     /** Imputation quality per imputer, repeat, fold and outer-test subject with an observed target. */
     public static CsvTable imputation(RunResults res) {
-        CsvTable t = new CsvTable("imputer", "repeat", "fold", "subject", "mae", "rmse", "pearson_r",
+        CsvTable t = new CsvTable("imputer", "repetition", "fold", "subject", "mae", "rmse", "pearson_r",
                 "strength_mae", "skill");
         for (RunResults.ImputationRow q : res.imputation()) {
             t.row().text(q.imputer()).integer(q.repeat() + 1).integer(q.fold() + 1)
@@ -188,7 +188,7 @@ public final class ResultTables {
     /** confusion.csv: every truth x predicted cell per pipeline and repeat. */
     public static CsvTable confusion(RunResults res) {
         List<String> groups = res.experiment().spec().cohort().groups();
-        CsvTable t = new CsvTable("imputer", "feature_set", "classifier", "repeat", "truth", "predicted", "count");
+        CsvTable t = new CsvTable("imputer", "feature_set", "classifier", "repetition", "truth", "predicted", "count");
         for (Confusion.Cell c : Confusion.cells(res)) {
             t.row().text(c.pipeline().imputer()).text(c.pipeline().featureSet().label()).text(c.pipeline().classifier())
                     .integer(c.repeat() + 1).text(groups.get(c.truth())).text(groups.get(c.predicted()))

@@ -43,7 +43,7 @@ final class Tuning {
                 rows));
         List<List<String>> all = new ArrayList<>();
         for (CsvRows.Row r : d.hyperparameters.rows()) {
-            all.add(List.of(Html.esc(r.s("repeat")), Html.esc(r.s("fold")), Html.esc(r.s("stage")),
+            all.add(List.of(Html.esc(r.s("repetition")), Html.esc(r.s("fold")), Html.esc(r.s("stage")),
                     Html.esc(r.s("stage").equals("imputer") ? r.s("imputer")
                             : Names.pipeline(r.s("imputer"), r.s("feature_set"), r.s("classifier"))),
                     Html.esc(r.s("chosen")), Html.esc(Html.f3(r.d("inner_score")))));

@@ -87,7 +87,7 @@ class IrisEndToEndTest {
         }
         // confusion.csv: 3 x 3 cells per pipeline, every subject counted once
         List<String> confusion = Files.readAllLines(run.resolve("confusion.csv"));
-        assertEquals("imputer,feature_set,classifier,repeat,truth,predicted,count", confusion.get(0));
+        assertEquals("imputer,feature_set,classifier,repetition,truth,predicted,count", confusion.get(0));
         assertEquals(1 + 2 * 9, confusion.size());
         long forestTotal = confusion.stream().skip(1).filter(l -> l.contains(",forest,"))
                 .mapToLong(l -> Long.parseLong(l.substring(l.lastIndexOf(',') + 1))).sum();

@@ -280,7 +280,7 @@ class ExternalRoundTripTest {
             for (String[] c : rows(tasksDir.resolve("tasks.csv"))) {
                 tasks.computeIfAbsent(c[0] + "," + c[1] + "," + c[2] + "," + c[3], k -> new ArrayList<>()).add(c);
             }
-            StringBuilder out = new StringBuilder("repeat,fold,task,inner,subject," + String.join(",", features)
+            StringBuilder out = new StringBuilder("repetition,fold,task,inner,subject," + String.join(",", features)
                     + "\n");
             for (Map.Entry<String, List<String[]>> t : tasks.entrySet()) {
                 double[] mean = new double[features.size()];

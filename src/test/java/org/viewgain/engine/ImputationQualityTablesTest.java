@@ -97,7 +97,7 @@ class ImputationQualityTablesTest {
         List<String> edges = lines(ResultTables.imputationEdges(res));
         assertEquals(List.of("imputer,feature,mae", "avg,t1,2", "avg,t2,3", "avg,t3,4", "ridge,t1,2", "ridge,t2,1",
                 "ridge,t3,0"), edges);
-        assertEquals("imputer,repeat,fold,subject,mae,rmse,pearson_r,strength_mae,skill",
+        assertEquals("imputer,repetition,fold,subject,mae,rmse,pearson_r,strength_mae,skill",
                 lines(ResultTables.imputation(res)).get(0));
         assertEquals("ridge,1,3,s004,1,1,0.9,,0.75", lines(ResultTables.imputation(res)).get(4));
     }

@@ -33,7 +33,7 @@ class ExternalImputerTest {
     static final FitContext CROSS = new FitContext(0, 0, 1, 1, FitContext.Role.CROSS_FIT, 1L);
 
     static final String GOOD = """
-            repeat,fold,task,inner,subject,t1,t2
+            repetition,fold,task,inner,subject,t1,t2
             1,2,final,0,c,1.5,-2
             1,2,final,,d,3,4e-1
             1,2,cross-fit,2,b,7,8
@@ -145,7 +145,7 @@ class ExternalImputerTest {
         assertTrue(refusal(GOOD.replace("1,2,cross-fit", "1,2,crossfit"), FINAL, rows("a"), rows("c", "d"))
                 .contains(":4: task 'crossfit'"));
         assertTrue(refusal(GOOD.replace("1,2,final,0,c", "0,2,final,0,c"), FINAL, rows("a"), rows("c", "d"))
-                .contains(":2: column repeat is '0'"));
+                .contains(":2: column repetition is '0'"));
         assertTrue(refusal(GOOD.replace("cross-fit,2", "cross-fit,"), FINAL, rows("a"), rows("c", "d"))
                 .contains(":4: column inner"));
     }
