@@ -104,8 +104,10 @@ final class CsvRows {
         /** The cell as text; empty when the column is absent. */
         String s(String column) {
             Integer c = index.get(column);
-            if (c == null && column.equals("repetition")) {
-                c = index.get("repeat"); // the column's name in runs written before it was renamed
+            if (c == null) {
+                // names of runs written before the tables were made consistent
+                String old = column.equals("repetition") ? "repeat" : column.equals("estimate") ? "value" : null;
+                c = old == null ? null : index.get(old);
             }
             return c == null ? "" : cells[c];
         }

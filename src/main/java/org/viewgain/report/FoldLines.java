@@ -28,7 +28,7 @@ final class FoldLines {
         Set<String> pairs = new LinkedHashSet<>();
         for (CsvRows.Row r : d.foldMetrics.rows()) {
             if (r.s("metric").equals(METRIC)) {
-                value.put(Names.key(r) + "|" + r.s("repetition") + "|" + r.s("fold"), r.d("value"));
+                value.put(Names.key(r) + "|" + r.s("repetition") + "|" + r.s("fold"), r.d("estimate"));
                 if (r.s("feature_set").equals("source+imputed")) {
                     pairs.add(r.s("classifier") + "|" + r.s("imputer"));
                 }

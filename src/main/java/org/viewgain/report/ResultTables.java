@@ -55,7 +55,8 @@ public final class ResultTables {
     }
 
     public static CsvTable foldMetrics(List<Evaluation.FoldMetricRow> rows) {
-        CsvTable t = new CsvTable("imputer", "feature_set", "classifier", "repetition", "fold", "metric", "value", "n");
+        CsvTable t = new CsvTable("imputer", "feature_set", "classifier", "repetition", "fold", "metric", "estimate",
+                "n");
         for (Evaluation.FoldMetricRow m : rows) {
             t.row().text(m.pipeline().imputer()).text(m.pipeline().featureSet().label()).text(m.pipeline().classifier())
                     .integer(m.repeat() + 1).integer(m.fold() + 1).text(m.metric()).number(m.value()).integer(m.n());

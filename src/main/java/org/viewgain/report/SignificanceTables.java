@@ -55,9 +55,9 @@ public final class SignificanceTables {
     }
 
     public static CsvTable separation(List<org.viewgain.engine.Separation.Row> rows) {
-        CsvTable t = new CsvTable("feature_set", "imputer", "n", "pseudo_f", "p_value", "permutations");
+        CsvTable t = new CsvTable("imputer", "feature_set", "n", "pseudo_f", "p_value", "permutations");
         for (org.viewgain.engine.Separation.Row r : rows) {
-            t.row().text(r.featureSet()).text(r.imputer()).integer(r.n()).number(r.pseudoF()).number(r.pValue())
+            t.row().text(r.imputer()).text(r.featureSet()).integer(r.n()).number(r.pseudoF()).number(r.pValue())
                     .integer(r.permutations());
         }
         return t;

@@ -124,9 +124,9 @@ final class ReportFixtures {
         }
         Files.writeString(run.resolve("permutation_null.csv"), nul);
         Files.writeString(run.resolve("separation.csv"), """
-                feature_set,imputer,n,pseudo_f,p_value,permutations
-                source,none,40,2.0,0.0421,999
-                source+imputed,ridge,40,4.4,0.001,999
+                imputer,feature_set,n,pseudo_f,p_value,permutations
+                none,source,40,2.0,0.0421,999
+                ridge,source+imputed,40,4.4,0.001,999
                 """);
         StringBuilder imp = new StringBuilder("imputer,feature_set,classifier,feature,view,kind,value\n");
         for (int i = 1; i <= 6; i++) {
