@@ -67,12 +67,36 @@ public final class ResultTables {
     public static CsvTable hyperparameters(RunResults res) {
         CsvTable t = new CsvTable("repetition", "fold", "stage", "imputer", "feature_set", "classifier", "chosen",
                 "inner_score", "tuned_by", "grid_size", "unconverged_fits");
-        String tuneBy = res.experiment().spec().validation().tuneBy();
+        String tuneBy = SignificanceTables.column(res.experiment().spec().validation().tuneBy());
         for (RunResults.Choice c : res.choices()) {
             t.row().integer(c.repeat() + 1).integer(c.fold() + 1).text(c.stage()).text(c.imputer())
                     .text(c.featureSet()).text(c.classifier()).text(c.params()).number(c.innerScore())
                     .text(c.stage().equals("imputer") ? "mae" : tuneBy).integer(c.gridSize())
                     .integer(c.unconverged());
+        }
+        return t;
+    }
+
+    /**
+     * The same choices in long form, one row per chosen parameter ({@code chosen} of hyperparameters.csv split at
+     * {@code ;} and the first {@code =}), so that a data frame can filter on a parameter and its value.
+     */
+    public static CsvTable hyperparameterValues(RunResults res) {
+        CsvTable t = new CsvTable("repetition", "fold", "stage", "imputer", "feature_set", "classifier", "parameter",
+                "value");
+        for (RunResults.Choice c : res.choices()) {
+            if (c.params() == null || c.params().isEmpty()) {
+                continue;
+            }
+            for (String part : c.params().split(";")) {
+                int eq = part.indexOf('=');
+                if (eq <= 0) {
+                    continue;
+                }
+                t.row().integer(c.repeat() + 1).integer(c.fold() + 1).text(c.stage()).text(c.imputer())
+                        .text(c.featureSet()).text(c.classifier()).text(part.substring(0, eq))
+                        .text(part.substring(eq + 1));
+            }
         }
         return t;
     }

@@ -18,6 +18,7 @@ public final class RunWriter {
         folder.write("metrics.csv", ResultTables.metrics(metrics));
         folder.write("fold_metrics.csv", ResultTables.foldMetrics(Evaluation.foldMetrics(res)));
         folder.write("hyperparameters.csv", ResultTables.hyperparameters(res));
+        folder.write("hyperparameter_values.csv", ResultTables.hyperparameterValues(res));
         folder.write("imputation.csv", ResultTables.imputation(res));
         folder.write("imputation_edges.csv", ResultTables.imputationEdges(res));
         folder.write("imputation_summary.csv", ResultTables.imputationSummary(res));

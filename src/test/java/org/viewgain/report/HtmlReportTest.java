@@ -173,6 +173,24 @@ class HtmlReportTest {
     }
 
     @Test
+    void givenChoices_whenWritten_thenTheLongTableHasOneRowPerChosenParameter() throws IOException {
+        CsvRows wide = CsvRows.readIfPresent(run, "hyperparameters.csv");
+        CsvRows longForm = CsvRows.readIfPresent(run, "hyperparameter_values.csv");
+        int parameters = 0;
+        for (CsvRows.Row r : wide.rows()) {
+            parameters += r.s("chosen").split(";").length;
+        }
+        assertEquals(parameters, longForm.rows().size());
+        // the fixture's svm has grid C: [0.1, 1]; every chosen C is one of them
+        List<CsvRows.Row> c = longForm.where(r -> r.s("classifier").equals("svm") && r.s("parameter").equals("C"));
+        assertFalse(c.isEmpty());
+        assertTrue(c.stream().allMatch(r -> r.d("value") == 0.1 || r.d("value") == 1.0));
+        // tuned_by spelt as the metric columns are
+        assertTrue(wide.rows().stream().allMatch(r -> r.s("tuned_by").equals("mae")
+                || r.s("tuned_by").equals("balanced_accuracy")));
+    }
+
+    @Test
     void givenImputations_whenReported_thenTheTableShowsSkillAgainstTheMeanImputerAsInTheCsv() throws IOException {
         Path r = fullRun();
         Document doc = Jsoup.parse(HtmlReport.render(r, false));
