@@ -209,7 +209,7 @@ final class RunCommand implements Callable<Integer> {
             err.println("[viewgain] the report could not be written (" + e.getMessage() + "); rebuild it with "
                     + "'viewgain report " + folder.dir() + "'");
         }
-        out.print(SummaryTable.text(metrics));
+        out.print(SummaryTable.text(metrics, ex.spec().significance().confidence()));
         try {
             out.println("answer: " + Verdict.of(folder.dir()));
         } catch (IOException | RuntimeException e) {

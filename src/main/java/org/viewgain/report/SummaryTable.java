@@ -14,6 +14,11 @@ public final class SummaryTable {
     }
 
     public static String text(List<Evaluation.MetricRow> rows) {
+        return text(rows, 0.95);
+    }
+
+    /** The table, its footnote naming the interval level actually used ({@code significance.confidence}). */
+    public static String text(List<Evaluation.MetricRow> rows, double confidence) {
         Map<Pipeline, Map<String, Evaluation.MetricRow>> by = new LinkedHashMap<>();
         for (Evaluation.MetricRow r : rows) {
             by.computeIfAbsent(r.pipeline(), k -> new LinkedHashMap<>()).put(r.metric(), r);
@@ -37,8 +42,9 @@ public final class SummaryTable {
             }
             b.append('\n');
         }
-        b.append("(mean over repeats [interval at significance.confidence, 95% by default: Wilson for proportions,"
-                + " DeLong for AUC, bootstrap for balanced accuracy]; details in metrics.csv and report.html)\n");
+        b.append("(mean over repeats [" + CsvTable.formatNumber(100 * confidence) + "% interval, unadjusted: Wilson "
+                + "for proportions, DeLong for AUC, bootstrap for balanced accuracy]; details in metrics.csv and "
+                + "report.html)\n");
         return b.toString();
     }
 
