@@ -64,6 +64,12 @@ final class Style {
             summary { cursor: pointer; color: var(--teal); }
             footer { max-width: 1120px; margin: 0 auto; padding: 1rem 2rem 2rem; font-size: .8rem;
                      color: var(--muted); }
+            @media (max-width: 900px) {
+              main, footer { padding: .5rem .8rem 1.5rem; }
+              table { display: block; max-width: 100%; overflow-x: auto; }
+              table.answer td:nth-child(n+3) { white-space: normal; }
+              th, td { padding: .25rem .35rem; }
+            }
             @media print {
               @page { margin: 14mm 12mm; }
               html { font-size: 10.5pt; }
@@ -76,6 +82,10 @@ final class Style {
               h2, h3 { break-after: avoid; }
               figure, table.answer, div.flow, ul.verdicts li { break-inside: avoid; }
               figure img { max-width: 100%; }
+              table { font-size: 8.5pt; }
+              table.answer td:nth-child(n+3) { white-space: normal; }
+              thead { display: table-header-group; }
+              tr { break-inside: avoid; }
               details::details-content { content-visibility: visible; display: contents; }
               a { color: inherit; text-decoration: none; }
             }
