@@ -62,13 +62,14 @@ final class AnswerSection {
             }
             b.append("<div class=\"classifier\" id=\"answer-").append(Html.esc(slug(c))).append("\"><h3>Classifier ")
                     .append(Html.esc(c)).append("</h3>\n<ul class=\"verdicts\">\n");
-            pairs(rows).forEach((pair, pr) -> b.append("<li>").append(sentence(pr, d.alpha(), chance, power))
+            pairs(rows).forEach((pair, pr) -> b.append("<li>").append(sentence(pr, d.alpha(), chance, power,
+                            level(d)))
                     .append("</li>\n"));
-            b.append("</ul>\n").append(table(rows, chance));
+            b.append("</ul>\n").append(table(rows, chance, level(d)));
             b.append("</div>\n");
         }
         if (!mixed.isEmpty()) {
-            b.append("<h3>Comparisons across classifiers</h3>\n").append(table(mixed, chance));
+            b.append("<h3>Comparisons across classifiers</h3>\n").append(table(mixed, chance, level(d)));
         }
     }
 
@@ -91,7 +92,7 @@ final class AnswerSection {
     }
 
     /** One plain sentence: the verdict, then balanced accuracy, AUC and the Bayesian probabilities. */
-    static String sentence(List<CsvRows.Row> rows, double alpha, Chance chance, Power power) {
+    static String sentence(List<CsvRows.Row> rows, double alpha, Chance chance, Power power, String level) {
         CsvRows.Row first = rows.get(0);
         String nameA = Names.features(first.s("imputer_a"), first.s("feature_set_a"));
         String nameB = Names.features(first.s("imputer_b"), first.s("feature_set_b"));
@@ -115,7 +116,7 @@ final class AnswerSection {
                 String of = r.s("quantity").isEmpty() ? "" : " (" + Names.quantity(r.s("quantity")) + ")";
                 parts.add(Html.esc(String.format(Locale.ROOT, "%s%s %s vs %s (%s%s; %s p = %s)",
                         Names.metric(r.s("metric")), of, Html.f3(r.d("estimate_a")), Html.f3(r.d("estimate_b")),
-                        Html.signed3(r.d("difference")), interval(r), adjusted ? "adjusted" : "",
+                        Html.signed3(r.d("difference")), interval(r, level), adjusted ? "adjusted" : "",
                         Html.p(adjusted ? r.d("p_adjusted") : r.d("p_value"))).replace(";  p", "; p")));
             }
         }
@@ -133,10 +134,16 @@ final class AnswerSection {
         return s.toString();
     }
 
-    private static String interval(CsvRows.Row r) {
+    /** The interval level of the run, e.g. {@code 95%} (significance.confidence). */
+    static String level(ReportData d) {
+        double c = d.spec.path("significance").path("confidence").asDouble(0.95);
+        return CsvTable.formatNumber(100 * (c > 0 && c < 1 ? c : 0.95)) + "%";
+    }
+
+    private static String interval(CsvRows.Row r, String level) {
         double lo = r.d("ci_low");
         double hi = r.d("ci_high");
-        return Double.isFinite(lo) && Double.isFinite(hi) ? " (interval " + Html.signed3(lo) + " to "
+        return Double.isFinite(lo) && Double.isFinite(hi) ? " (unadjusted " + level + " interval " + Html.signed3(lo) + " to "
                 + Html.signed3(hi) + ")" : "";
     }
 
@@ -178,9 +185,10 @@ final class AnswerSection {
     }
 
     /** The small answer table: one row per comparison and test, every number kept exact in data-value. */
-    static String table(List<CsvRows.Row> rows, Chance chance) {
+    static String table(List<CsvRows.Row> rows, Chance chance, String level) {
         StringBuilder b = new StringBuilder("<table class=\"answer\"><thead><tr>");
-        HEAD.forEach(h -> b.append("<th>").append(Html.esc(h)).append("</th>"));
+        HEAD.forEach(h -> b.append("<th>").append(Html.esc(h.equals("interval") ? level + " interval (unadjusted)"
+                : h)).append("</th>"));
         b.append("</tr></thead><tbody>\n");
         String pair = null;
         for (CsvRows.Row r : rows) {

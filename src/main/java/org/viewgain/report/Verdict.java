@@ -94,8 +94,7 @@ public final class Verdict {
     }
 
     private static String confidence(ReportData d) {
-        double c = d.spec.path("significance").path("confidence").asDouble(0.95);
-        return CsvTable.formatNumber(100 * (c > 0 && c < 1 ? c : 0.95)) + "%";
+        return AnswerSection.level(d);
     }
 
     private static String chance(ReportData d, double alpha, String level) {

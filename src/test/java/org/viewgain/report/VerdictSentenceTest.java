@@ -79,5 +79,8 @@ class VerdictSentenceTest {
         int at = html.indexOf("id=\"verdict\"");
         assertTrue(at > 0 && at < html.indexOf("id=\"verdict-basis\""), "the sentence comes first in the answer");
         assertTrue(html.contains("source+imputed beat source in 1 of 2 comparisons"));
+        // every interval shown says its level and that it is unadjusted
+        assertTrue(html.contains("<th>95% interval (unadjusted)</th>"));
+        assertTrue(html.contains("(unadjusted 95% interval -0.031 to +0.129); adjusted p"), "sentence interval");
     }
 }
