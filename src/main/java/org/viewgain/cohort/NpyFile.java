@@ -19,7 +19,7 @@ import org.viewgain.spec.IoMessages;
  * {@code shape}, then the raw elements. Reads little- and big-endian floats (4, 8 bytes), signed and unsigned
  * integers (1 to 8 bytes) and booleans, in C or Fortran order. Object, complex, structured and string arrays are
  * refused. Written here rather than taken from a library: the format is small and fully published, and the Java
- * readers found either pull in a large dependency or are not maintained.
+ * readers on Maven Central are early (org.openlca:npy 0.0.x) or pull in Kotlin (org.jetbrains.bio:npy).
  */
 final class NpyFile implements NumericArray {
     private static final byte[] MAGIC = {(byte) 0x93, 'N', 'U', 'M', 'P', 'Y'};
@@ -66,6 +66,10 @@ final class NpyFile implements NumericArray {
                     + " is not read (versions 1.0, 2.0 and 3.0 are)");
         }
         int lengthBytes = major == 1 ? 2 : 4;
+        if (b.limit() < 8 + lengthBytes) {
+            throw new BadInputException(where + ": the .npy header is cut short (the file has " + b.limit()
+                    + " bytes)");
+        }
         long headerLength = major == 1 ? (b.order(ByteOrder.LITTLE_ENDIAN).getShort(8) & 0xffff)
                 : (b.order(ByteOrder.LITTLE_ENDIAN).getInt(8) & 0xffffffffL);
         long dataStart = 8L + lengthBytes + headerLength;

@@ -26,7 +26,7 @@ class RegressionCorpusTest {
     @Test
     void givenEveryRegressionInput_whenLoaded_thenRefusedCleanly() {
         List<Path> files = Corpus.files("regressions");
-        assertTrue(files.size() >= 3, "the regression corpus is in place");
+        assertTrue(files.size() >= 4, "the regression corpus is in place");
         for (Path f : files) {
             String name = f.getFileName().toString();
             boolean loaded;
@@ -42,6 +42,12 @@ class RegressionCorpusTest {
                 Path m = dir.resolve(name);
                 IDS.forEach(id -> Corpus.write(m.resolve(id + ".csv"), Corpus.read(f)));
                 loaded = Outcomes.loadsOrRefusesInOneLine(() -> ViewLoader.matrices("v", m.resolve("{subject}.csv"),
+                        IDS, false, 1e-6), m.toString());
+            } else if (name.startsWith("array-")) {
+                Path m = dir.resolve(name + "-dir");
+                String ext = ArrayLoaderFuzzTest.extension(f);
+                IDS.forEach(id -> ArrayLoaderFuzzTest.write(m.resolve(id + ext), ArrayLoaderFuzzTest.read(f)));
+                loaded = Outcomes.loadsOrRefusesInOneLine(() -> ViewLoader.matrices("v", m.resolve("{subject}" + ext),
                         IDS, false, 1e-6), m.toString());
             } else {
                 continue;
