@@ -71,3 +71,30 @@ raw = np.array([[10 * i + j for j in range(3)] for i in range(2)])
 write_npy("raw-2x3-f8-le-fortran-v1.npy", np.asfortranarray(raw * 1.5), (1, 0))
 write_npy("raw-2x3-i2-be-c-v1.npy", raw.astype(">i2"), (1, 0))
 write_npy("raw-2x3-u1-fortran-v1.npy", np.asfortranarray(raw.astype("u1")), (1, 0))
+
+# cohort12/: a 12-subject cohort (a1..a12) for command-line tests: the source view stacked in one .npy file in the
+# order of order.txt (a12 first, down to a1), the target view one .mat file per subject (variable 'area'), missing
+# for a11 and a12; values are seeded random symmetric 4 x 4 matrices with a group difference on one edge
+rng = np.random.default_rng(2026)
+os.makedirs("cohort12/area", exist_ok=True)
+ids = ["a%d" % i for i in range(1, 13)]
+with open("cohort12/subjects.csv", "w") as f:
+    f.write("subject,group\n" + "".join("%s,%s\n" % (s, "patient" if i % 2 == 0 else "control")
+                                        for i, s in enumerate(ids, start=1)))
+order = list(reversed(ids))
+with open("cohort12/order.txt", "w") as f:
+    f.write("\n".join(order) + "\n")
+
+
+def sym(shift):
+    a = rng.normal(size=(R, R))
+    a = (a + a.T) / 2
+    a[0, 1] = a[1, 0] = a[0, 1] + shift
+    np.fill_diagonal(a, 0.0)
+    return a
+
+
+np.save("cohort12/thickness.npy", np.stack([sym(2.0 * (int(s[1:]) % 2 == 0)) for s in order]))
+for i, s in enumerate(ids, start=1):
+    if i <= 10:
+        scipy.io.savemat("cohort12/area/%s.mat" % s, {"area": sym(2.0 * (i % 2 == 0))})
