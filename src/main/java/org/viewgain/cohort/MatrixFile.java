@@ -51,6 +51,16 @@ final class MatrixFile {
         }
         String where = "view " + view + ", subject " + subject + ", file " + file;
         String text = CsvText.text(file, "view " + view + " matrix file for subject " + subject);
+        try {
+            return parse(where, view, subject, file, text, symmetryTolerance);
+        } catch (BadInputException e) {
+            String cause = LikelyCause.ofMatrix(text);
+            throw cause == null ? e : new BadInputException(where + ", " + cause, e);
+        }
+    }
+
+    private static Parsed parse(String where, String view, String subject, Path file, String text,
+                                double symmetryTolerance) {
         List<CsvText.Row> rows = text.indexOf(',') >= 0
                 ? CsvText.parse(text, file, "view " + view + " matrix file for subject " + subject)
                 : CsvText.splitWhitespace(text);

@@ -34,6 +34,10 @@ public final class SubjectsTable {
                     + "and one row per subject");
         }
         CsvText.Row header = rows.get(0);
+        String separator = LikelyCause.separatorOfHeader(header);
+        if (separator != null) {
+            throw new BadInputException(ROLE + " " + csv + ", line " + header.line() + ": " + separator);
+        }
         Map<String, Integer> columns = columnIndex(csv, header);
         int idCol = column(csv, columns, idColumn, "id");
         int groupCol = column(csv, columns, groupColumn, "group");
@@ -52,7 +56,7 @@ public final class SubjectsTable {
             String where = ROLE + " " + csv + ", line " + row.line();
             if (row.size() != header.size()) {
                 throw new BadInputException(where + ": expected " + header.size() + " cells as in the header, found "
-                        + row.size());
+                        + row.size() + LikelyCause.extraCells(row, header.size()));
             }
             String id = row.cell(idCol);
             if (id.isEmpty()) {
