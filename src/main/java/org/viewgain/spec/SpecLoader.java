@@ -31,8 +31,8 @@ public final class SpecLoader {
         try {
             text = Files.readString(file, StandardCharsets.UTF_8);
         } catch (IOException e) {
-            throw new BadInputException(file + ": cannot read the spec file (" + e.getClass().getSimpleName() + ": "
-                    + e.getMessage() + ")");
+            String why = Files.isDirectory(file) ? "it is a folder" : IoMessages.ioProblem(e);
+            throw new BadInputException(file + ": cannot read the spec file (" + why + ")", e);
         }
         return parse(text, file);
     }
