@@ -84,8 +84,8 @@ final class EdgeTable {
                 String cell = row.cell(c);
                 double x = Cells.finiteOrNaN(cell);
                 if (!Double.isFinite(x)) {
-                    throw new BadInputException(where + ", column '" + header.cell(c) + "' (subject " + id + "): "
-                            + Cells.problem(cell));
+                    throw new BadInputException(where + ", column " + CsvText.show(header.cell(c)) + " (subject " + id
+                            + "): " + Cells.problem(cell));
                 }
                 v[k++] = x;
             }

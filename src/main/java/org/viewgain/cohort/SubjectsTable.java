@@ -60,7 +60,7 @@ public final class SubjectsTable {
             }
             String id = row.cell(idCol);
             if (id.isEmpty()) {
-                throw new BadInputException(where + ": empty subject id in column '" + idColumn + "'");
+                throw new BadInputException(where + ": empty subject id in column " + CsvText.show(idColumn));
             }
             Integer earlier = lineOfId.putIfAbsent(id, row.line());
             if (earlier != null) {
@@ -70,17 +70,17 @@ public final class SubjectsTable {
             where = where + " (subject " + id + ")";
             String group = row.cell(groupCol);
             if (group.isEmpty()) {
-                throw new BadInputException(where + ": empty group in column '" + groupColumn + "'");
+                throw new BadInputException(where + ": empty group in column " + CsvText.show(groupColumn));
             }
             if (allowedGroups != null && !allowedGroups.isEmpty() && !allowedGroups.contains(group)) {
-                throw new BadInputException(where + ": group " + CsvText.show(group) + " in column '" + groupColumn
-                        + "' is not one of " + allowedGroups);
+                throw new BadInputException(where + ": group " + CsvText.show(group) + " in column "
+                        + CsvText.show(groupColumn) + " is not one of " + allowedGroups);
             }
             String site = null;
             if (siteCol >= 0) {
                 site = row.cell(siteCol);
                 if (site.isEmpty()) {
-                    throw new BadInputException(where + ": empty site in column '" + siteColumn + "'");
+                    throw new BadInputException(where + ": empty site in column " + CsvText.show(siteColumn));
                 }
             }
             Map<String, Double> cov = new LinkedHashMap<>();
@@ -88,7 +88,7 @@ public final class SubjectsTable {
                 String cell = row.cell(covCols[k]);
                 double v = Cells.finiteOrNaN(cell);
                 if (!Double.isFinite(v)) {
-                    throw new BadInputException(where + ", column '" + covNames.get(k) + "': covariate "
+                    throw new BadInputException(where + ", column " + CsvText.show(covNames.get(k)) + ": covariate "
                             + Cells.problem(cell));
                 }
                 cov.put(covNames.get(k), v);
