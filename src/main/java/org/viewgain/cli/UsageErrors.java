@@ -29,7 +29,7 @@ final class UsageErrors implements CommandLine.IParameterExceptionHandler {
         if (ex instanceof CommandLine.UnmatchedArgumentException u && !u.getUnmatched().isEmpty()) {
             String first = u.getUnmatched().get(0);
             List<String> commands = new ArrayList<>(cl.getSubcommands().keySet());
-            if (!first.startsWith("-") && !commands.isEmpty() && !cl.getParseResult().hasSubcommand()) {
+            if (!first.startsWith("-") && !commands.isEmpty() && (cl.getParseResult() == null || !cl.getParseResult().hasSubcommand())) {
                 return "unknown command '" + first + "'" + nearest(first, commands) + " (commands: "
                         + String.join(", ", commands) + ")";
             }

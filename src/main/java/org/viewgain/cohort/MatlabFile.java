@@ -1,6 +1,8 @@
 package org.viewgain.cohort;
 
 import java.io.IOException;
+import java.nio.ByteBuffer;
+import java.nio.ByteOrder;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -22,6 +24,8 @@ import us.hebi.matlab.mat.types.Sources;
  */
 final class MatlabFile implements NumericArray {
     private static final int HEADER = 128;
+    /** The MAT-file data type of a zlib-compressed element (miCOMPRESSED), which is not padded. */
+    private static final int COMPRESSED = 15;
 
     private final Matrix matrix;
     private final int[] shape;
@@ -46,6 +50,7 @@ final class MatlabFile implements NumericArray {
             throw new BadInputException(where + ": cannot read it (" + IoMessages.ioProblem(e) + ")", e);
         }
         checkHeader(bytes, where);
+        checkElementSizes(bytes, where);
         MatFile mat;
         try {
             mat = Mat5.newReader(Sources.wrap(bytes)).disableSubsystemProcessing().readMat();
@@ -96,6 +101,35 @@ final class MatlabFile implements NumericArray {
         if (b.length < HEADER || !text.startsWith("MATLAB 5.0 MAT-file")) {
             throw new BadInputException(where + ": not a MATLAB 5/7 MAT-file (no 'MATLAB 5.0 MAT-file' header; a"
                     + " v4 file or another format); save it again in MATLAB with save(file, 'name', '-v7')");
+        }
+    }
+
+    /**
+     * Refuses a top-level element that claims more bytes than the file holds, before MFL sees it (MFL would print a
+     * warning of its own on stderr for a size beyond 2 GB).
+     */
+    private static void checkElementSizes(byte[] b, String where) {
+        ByteOrder order = b[126] == 'I' && b[127] == 'M' ? ByteOrder.LITTLE_ENDIAN
+                : b[126] == 'M' && b[127] == 'I' ? ByteOrder.BIG_ENDIAN : null;
+        if (order == null) {
+            throw new BadInputException(where + ": not a readable MATLAB file (no byte-order mark 'IM' or 'MI' at"
+                    + " byte 127)");
+        }
+        ByteBuffer bb = ByteBuffer.wrap(b).order(order);
+        long pos = HEADER;
+        while (pos + 8 <= b.length) {
+            int type = bb.getInt((int) pos);
+            long size = bb.getInt((int) pos + 4) & 0xffffffffL;
+            if ((type >>> 16) != 0) { // a small element: tag and up to 4 bytes of data in 8 bytes
+                pos += 8;
+                continue;
+            }
+            if (size > b.length - pos - 8) {
+                throw new BadInputException(where + ": not a readable MATLAB file (damaged or cut short: the"
+                        + " variable at byte " + pos + " claims " + size + " bytes, the file holds " + (b.length - pos
+                        - 8) + " after it)");
+            }
+            pos += 8 + (type == COMPRESSED ? size : (size + 7) / 8 * 8);
         }
     }
 

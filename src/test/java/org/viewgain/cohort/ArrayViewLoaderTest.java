@@ -135,6 +135,29 @@ class ArrayViewLoaderTest {
     }
 
     @Test
+    void givenMatWhoseVariableClaimsMoreBytesThanTheFile_whenLoaded_thenOneLineAndNothingOnStderr(
+            @org.junit.jupiter.api.io.TempDir Path dir) throws java.io.IOException {
+        byte[] b = java.nio.file.Files.readAllBytes(arrays("mat-v5/s1.mat"));
+        // MAT-file level 5: the first element's tag follows the 128-byte header; its size is the uint32 at 132..135
+        // ('IM' at 126: little-endian); 0xF0FFFFFF claims about 4 GB
+        b[132] = (byte) 0xFF;
+        b[133] = (byte) 0xFF;
+        b[134] = (byte) 0xFF;
+        b[135] = (byte) 0xF0;
+        Path f = java.nio.file.Files.write(dir.resolve("s1.mat"), b);
+        java.io.PrintStream err = System.err;
+        java.io.ByteArrayOutputStream stray = new java.io.ByteArrayOutputStream();
+        System.setErr(new java.io.PrintStream(stray, true));
+        try {
+            expectBadInput(() -> MatrixFile.read("thick", "s1", f, null, 0.0), "s1.mat", "damaged or cut short",
+                    "the variable at byte 128 claims 4043309055 bytes");
+        } finally {
+            System.setErr(err);
+        }
+        assertEquals("", stray.toString(), "MFL's own warning is not printed");
+    }
+
+    @Test
     void givenStackedFileAsPerSubjectMatrix_whenLoaded_thenSuggestsAStackedView() {
         expectBadInput(() -> MatrixFile.read("thick", "s1", arrays("stacked.npy"), null, 0.0), "stacked.npy",
                 "found shape 3 x 4 x 4", "'stacked' view");
