@@ -8,6 +8,8 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.zip.DataFormatException;
+import java.util.zip.Inflater;
 import org.viewgain.spec.BadInputException;
 import org.viewgain.spec.IoMessages;
 import us.hebi.matlab.mat.format.Mat5;
@@ -26,6 +28,8 @@ final class MatlabFile implements NumericArray {
     private static final int HEADER = 128;
     /** The MAT-file data type of a zlib-compressed element (miCOMPRESSED), which is not padded. */
     private static final int COMPRESSED = 15;
+    /** The MAT-file data type of a variable (miMATRIX). */
+    private static final int MATRIX = 14;
 
     private final Matrix matrix;
     private final int[] shape;
@@ -105,32 +109,56 @@ final class MatlabFile implements NumericArray {
     }
 
     /**
-     * Refuses a top-level element that claims more bytes than the file holds, before MFL sees it (MFL would print a
-     * warning of its own on stderr for a size beyond 2 GB).
+     * Refuses a damaged file before MFL reads it, where MFL would print a warning of its own on stderr (a size
+     * beyond 2 GB) and then fail: every top-level element must be a matrix or a compressed element that fits in the
+     * file, and a compressed one must start with a matrix tag of a possible size.
      */
     private static void checkElementSizes(byte[] b, String where) {
         ByteOrder order = b[126] == 'I' && b[127] == 'M' ? ByteOrder.LITTLE_ENDIAN
                 : b[126] == 'M' && b[127] == 'I' ? ByteOrder.BIG_ENDIAN : null;
         if (order == null) {
-            throw new BadInputException(where + ": not a readable MATLAB file (no byte-order mark 'IM' or 'MI' at"
-                    + " byte 127)");
+            throw damaged(where, "no byte-order mark 'IM' or 'MI' at byte 127");
         }
         ByteBuffer bb = ByteBuffer.wrap(b).order(order);
         long pos = HEADER;
         while (pos + 8 <= b.length) {
             int type = bb.getInt((int) pos);
             long size = bb.getInt((int) pos + 4) & 0xffffffffL;
-            if ((type >>> 16) != 0) { // a small element: tag and up to 4 bytes of data in 8 bytes
-                pos += 8;
-                continue;
+            if (type != MATRIX && type != COMPRESSED) {
+                throw damaged(where, "the element at byte " + pos + " has type " + type + ", expected a variable");
             }
             if (size > b.length - pos - 8) {
-                throw new BadInputException(where + ": not a readable MATLAB file (damaged or cut short: the"
-                        + " variable at byte " + pos + " claims " + size + " bytes, the file holds " + (b.length - pos
-                        - 8) + " after it)");
+                throw damaged(where, "the variable at byte " + pos + " claims " + size + " bytes, the file holds "
+                        + (b.length - pos - 8) + " after it");
+            }
+            if (type == COMPRESSED) {
+                checkCompressedTag(b, (int) pos + 8, (int) size, order, where, pos);
             }
             pos += 8 + (type == COMPRESSED ? size : (size + 7) / 8 * 8);
         }
+    }
+
+    private static void checkCompressedTag(byte[] b, int from, int length, ByteOrder order, String where, long pos) {
+        Inflater inflater = new Inflater();
+        byte[] tag = new byte[8];
+        int got;
+        try {
+            inflater.setInput(b, from, length);
+            got = inflater.inflate(tag);
+        } catch (DataFormatException e) {
+            got = -1;
+        } finally {
+            inflater.end();
+        }
+        ByteBuffer t = ByteBuffer.wrap(tag).order(order);
+        if (got != 8 || t.getInt(0) != MATRIX || (t.getInt(4) & 0xffffffffL) > Integer.MAX_VALUE) {
+            throw damaged(where, "the compressed variable at byte " + pos + " does not start with a readable"
+                    + " matrix");
+        }
+    }
+
+    private static BadInputException damaged(String where, String detail) {
+        return new BadInputException(where + ": not a readable MATLAB file (damaged or cut short: " + detail + ")");
     }
 
     @Override
