@@ -15,7 +15,7 @@ record ByteEdit(Kind kind, int at, int value, String text) {
     enum Kind { FLIP, SET, CUT, INSERT, TEXT }
 
     /** Text a mutated .npy header may receive: other types, orders, shapes (huge, negative, empty) and junk. */
-    private static final List<String> HEADER_TEXT = List.of("'<f8'", "'>f4'", "'|b1'", "'<c16'", "'|O'", "'<U8'",
+    static final List<String> HEADER_TEXT = List.of("'<f8'", "'>f4'", "'|b1'", "'<c16'", "'|O'", "'<U8'",
             "[('a', '<f8')]", "True", "False", "(4, 4)", "(3, 4, 4)", "(4,)", "()", "(99999999, 99999999)",
             "(-4, 4)", "(4, 4L)", "(0, 0)", "(2147483647, 3)", "{", "}", "'shape'", "'descr'", "\u00e9\u00e8",
             "\0", "\n", "MATLAB 5.0 MAT-file", "MATLAB 7.3 MAT-file", "\u0093NUMPY");
