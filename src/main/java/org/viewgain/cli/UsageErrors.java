@@ -43,6 +43,13 @@ final class UsageErrors implements CommandLine.IParameterExceptionHandler {
                     + String.join("', '", u.getUnmatched()) + "'";
         }
         String m = oneLine(ex.getMessage());
+        java.util.regex.Matcher help = java.util.regex.Pattern.compile("Unknown subcommand '(.*)'\\.?").matcher(m);
+        if (help.matches()) { // 'viewgain help rnu'
+            CommandLine top = cl.getParent() != null ? cl.getParent() : cl;
+            List<String> commands = new ArrayList<>(top.getSubcommands().keySet());
+            return "unknown command '" + help.group(1) + "'" + nearest(help.group(1), commands) + " (commands: "
+                    + String.join(", ", commands) + ")";
+        }
         // picocli's sentences start with a capital; ours do not
         return m.length() > 1 && Character.isUpperCase(m.charAt(0)) && Character.isLowerCase(m.charAt(1))
                 ? Character.toLowerCase(m.charAt(0)) + m.substring(1) : m;

@@ -116,6 +116,7 @@ class MessagesCliTest {
     void givenMisspelledCommandOrOption_whenRun_thenNearestSuggested() {
         refused(new String[] {"rnu", "spec.yaml"}, "unknown command 'rnu'; did you mean 'run'?");
         refused(new String[] {"chekc", "spec.yaml"}, "did you mean 'check'?");
+        refused(new String[] {"help", "rnu"}, "unknown command 'rnu'; did you mean 'run'?");
         refused(new String[] {"run", "--thread", "2", "x.yaml"}, "unknown option '--thread'",
                 "did you mean '--threads'?", "see 'viewgain run --help'");
         refused(new String[] {"check"}, "missing required parameter", "see 'viewgain check --help'");
