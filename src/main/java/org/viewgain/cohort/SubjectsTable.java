@@ -62,6 +62,11 @@ public final class SubjectsTable {
             if (id.isEmpty()) {
                 throw new BadInputException(where + ": empty subject id in column " + CsvText.show(idColumn));
             }
+            if (id.chars().anyMatch(Character::isISOControl)) {
+                // an id is used in file names and in every message about the subject
+                throw new BadInputException(where + ": subject id " + CsvText.show(id) + " holds a line break, tab"
+                        + " or other control character (a quote left open?)");
+            }
             Integer earlier = lineOfId.putIfAbsent(id, row.line());
             if (earlier != null) {
                 throw new BadInputException(ROLE + " " + csv + ": subject " + id + " appears twice, on lines "
