@@ -13,8 +13,8 @@ import picocli.CommandLine.Option;
 
 /** {@code viewgain demo}: writes the invented demo cohort and its spec to a folder and runs it. */
 @Command(name = "demo", mixinStandardHelpOptions = true, versionProvider = Root.Version.class,
-        description = "Write the invented demo cohort (demo-data/) and spec (experiment-specs/demo.yaml) to a folder "
-                + "and run it (results/ in the same folder).")
+        description = "Write the invented demo cohort and its spec to a folder and run it there: "
+                + "DIR/demo-data/, DIR/experiment-specs/demo.yaml, DIR/results/.")
 final class DemoCommand implements Callable<Integer> {
     /** Seed of the committed demo data. */
     static final long DEMO_SEED = 2026;

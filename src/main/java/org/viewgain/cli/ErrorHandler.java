@@ -18,20 +18,15 @@ final class ErrorHandler implements CommandLine.IExecutionExceptionHandler {
         boolean verbose = parsed.hasMatchedOption("--verbose")
                 || (parsed.subcommand() != null && parsed.subcommand().hasMatchedOption("--verbose"));
         if (ex instanceof BadInputException) {
-            err.println("viewgain: " + ex.getMessage());
+            // every line starts the same way, also the lines of a spec with several problems
+            ex.getMessage().lines().forEach(l -> err.println(UsageErrors.PREFIX + l));
             if (verbose) {
                 ex.printStackTrace(err);
             }
             err.flush();
             return BAD_INPUT;
         }
-        Throwable root = ex;
-        while (root.getCause() != null && root.getCause() != root) {
-            root = root.getCause();
-        }
-        String what = root instanceof OutOfMemoryError
-                ? Failure.outOfMemory()
-                : root.getClass().getSimpleName() + (root.getMessage() == null ? "" : ": " + root.getMessage());
+        String what = Failure.describe(ex);
         err.println("viewgain: the run failed: " + what + (verbose ? "" : " (use --verbose for details)"));
         if (verbose) {
             ex.printStackTrace(err);

@@ -7,6 +7,7 @@ import java.time.Instant;
 import org.viewgain.report.Provenance;
 import org.viewgain.report.RunFolder;
 import org.viewgain.spec.BadInputException;
+import org.viewgain.spec.IoMessages;
 import picocli.CommandLine;
 
 /**
@@ -46,7 +47,7 @@ final class Failure {
                 + " JAVA_OPTS=-Xmx<size>, use fewer --threads, or select features to shrink the rows)", gb);
     }
 
-    /** One phrase naming the cause: out of memory, disk full, or the root exception. */
+    /** One phrase naming the cause: out of memory, disk full, a file problem or the root's message (no class names). */
     static String describe(Throwable e) {
         Throwable root = e;
         boolean io = false;
@@ -64,7 +65,12 @@ final class Failure {
             }
             root = root.getCause();
         }
-        String m = root.getMessage() == null ? "" : ": " + root.getMessage();
-        return (io ? "cannot write: " : "") + root.getClass().getSimpleName() + m;
+        if (root instanceof IOException ioe) {
+            String file = ioe instanceof java.nio.file.FileSystemException fs && fs.getFile() != null
+                    ? fs.getFile() + ": " : "";
+            return "cannot write or read a file: " + file + IoMessages.ioProblem(ioe);
+        }
+        String m = root.getMessage() == null ? "" : IoMessages.withoutClassNames(root.getMessage());
+        return (io ? "cannot write or read a file" : "an internal error") + (m.isEmpty() ? "" : ": " + m);
     }
 }

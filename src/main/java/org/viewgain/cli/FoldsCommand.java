@@ -158,7 +158,7 @@ final class FoldsCommand implements Callable<Integer> {
     }
 
     private static String describe(Specs.View v) {
-        return (v.layout() == Specs.Layout.MATRICES ? "matrices " : "table ")
+        return v.layout().name().toLowerCase(java.util.Locale.ROOT) + " "
                 + v.location().toAbsolutePath().normalize()
                 + (v.idColumn() == null ? "" : " (id column " + v.idColumn() + ")");
     }

@@ -15,6 +15,7 @@ public final class Main {
     public static CommandLine commandLine() {
         CommandLine cl = new CommandLine(new Root());
         cl.setExecutionExceptionHandler(new ErrorHandler());
+        cl.setParameterExceptionHandler(new UsageErrors());
         cl.setCaseInsensitiveEnumValuesAllowed(true);
         return cl;
     }

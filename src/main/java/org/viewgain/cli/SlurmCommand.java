@@ -20,11 +20,14 @@ import picocli.CommandLine.Parameters;
  * task succeeded. A task that was killed (wall time, preemption) resumes its shard when run again.
  */
 @Command(name = "slurm", mixinStandardHelpOptions = true, versionProvider = Root.Version.class,
-        description = "Write Slurm scripts that run a spec as a job array of N shards and merge them: "
-                + "DIR/array.sh, DIR/merge.sh, DIR/submit.sh (run submit.sh on the cluster's login node).")
+        description = "Write Slurm scripts that run a spec as a job array of N shards and then merge them "
+                + "(DIR/array.sh, DIR/merge.sh); submit both with DIR/submit.sh on the login node.")
 final class SlurmCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "SPEC", description = "The experiment spec (YAML).")
     Path spec;
+
+    @Option(names = "--verbose", description = "Print stack traces of errors.")
+    boolean verbose;
 
     @Option(names = "--shards", paramLabel = "N", required = true, description = "Number of array tasks.")
     int shards;

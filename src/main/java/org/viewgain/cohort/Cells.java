@@ -38,7 +38,7 @@ final class Cells {
             return "expected a number, found an empty cell";
         }
         if (isName(cell)) {
-            return "expected a number, found " + CsvText.show(cell);
+            return "expected a number, found " + CsvText.show(cell) + LikelyCause.decimalComma(cell);
         }
         return "expected a finite number, found " + CsvText.show(cell);
     }

@@ -15,6 +15,7 @@ import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVParser;
 import org.apache.commons.csv.CSVRecord;
 import org.viewgain.spec.BadInputException;
+import org.viewgain.spec.IoMessages;
 
 /**
  * Reads a delimited text file into rows of stripped cells, each with the line on which it starts, so that every
@@ -56,7 +57,7 @@ final class CsvText {
         } catch (CharacterCodingException e) {
             throw new BadInputException(role + " " + file + " is not UTF-8 text", e);
         } catch (IOException e) {
-            throw new BadInputException("cannot read " + role + " " + file + ": " + oneLine(e.getMessage()), e);
+            throw new BadInputException("cannot read " + role + " " + file + ": " + IoMessages.ioProblem(e), e);
         }
     }
 

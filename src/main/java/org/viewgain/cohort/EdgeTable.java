@@ -24,6 +24,10 @@ final class EdgeTable {
             throw new BadInputException(file + " is empty: expected a header row and one row per subject");
         }
         CsvText.Row header = rows.get(0);
+        String separator = LikelyCause.separatorOfHeader(header);
+        if (separator != null) {
+            throw new BadInputException(file + ", line " + header.line() + ": " + separator);
+        }
         int idCol = idColumn == null ? 0 : header.cells().indexOf(idColumn);
         if (idCol < 0) {
             throw new BadInputException(file + ": no id column " + CsvText.show(idColumn)
@@ -56,7 +60,7 @@ final class EdgeTable {
             String where = file + ", line " + row.line();
             if (row.size() != header.size()) {
                 throw new BadInputException(where + ": expected " + header.size() + " cells as in the header, found "
-                        + row.size());
+                        + row.size() + LikelyCause.extraCells(row, header.size()));
             }
             String id = row.cell(idCol);
             if (id.isEmpty()) {
@@ -80,8 +84,8 @@ final class EdgeTable {
                 String cell = row.cell(c);
                 double x = Cells.finiteOrNaN(cell);
                 if (!Double.isFinite(x)) {
-                    throw new BadInputException(where + ", column '" + header.cell(c) + "' (subject " + id + "): "
-                            + Cells.problem(cell));
+                    throw new BadInputException(where + ", column " + CsvText.show(header.cell(c)) + " (subject " + id
+                            + "): " + Cells.problem(cell));
                 }
                 v[k++] = x;
             }

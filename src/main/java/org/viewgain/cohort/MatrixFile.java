@@ -37,8 +37,30 @@ final class MatrixFile {
     }
 
     static Parsed read(String view, String subject, Path file, double symmetryTolerance) {
+        return read(view, subject, file, null, symmetryTolerance);
+    }
+
+    /** Reads a text matrix, or a .npy or .mat file by its extension ({@code variable}: the .mat variable or null). */
+    static Parsed read(String view, String subject, Path file, String variable, double symmetryTolerance) {
+        if (ArrayMatrices.isArrayFile(file)) {
+            return ArrayMatrices.subject(view, subject, file, variable, symmetryTolerance);
+        }
+        if (variable != null) {
+            throw new BadInputException("view " + view + ", subject " + subject + ", file " + file + ": views." + view
+                    + ".variable is for .mat files, but this is a text matrix");
+        }
         String where = "view " + view + ", subject " + subject + ", file " + file;
         String text = CsvText.text(file, "view " + view + " matrix file for subject " + subject);
+        try {
+            return parse(where, view, subject, file, text, symmetryTolerance);
+        } catch (BadInputException e) {
+            String cause = LikelyCause.ofMatrix(text);
+            throw cause == null ? e : new BadInputException(where + ", " + cause, e);
+        }
+    }
+
+    private static Parsed parse(String where, String view, String subject, Path file, String text,
+                                double symmetryTolerance) {
         List<CsvText.Row> rows = text.indexOf(',') >= 0
                 ? CsvText.parse(text, file, "view " + view + " matrix file for subject " + subject)
                 : CsvText.splitWhitespace(text);

@@ -34,6 +34,10 @@ public final class SubjectsTable {
                     + "and one row per subject");
         }
         CsvText.Row header = rows.get(0);
+        String separator = LikelyCause.separatorOfHeader(header);
+        if (separator != null) {
+            throw new BadInputException(ROLE + " " + csv + ", line " + header.line() + ": " + separator);
+        }
         Map<String, Integer> columns = columnIndex(csv, header);
         int idCol = column(csv, columns, idColumn, "id");
         int groupCol = column(csv, columns, groupColumn, "group");
@@ -52,11 +56,16 @@ public final class SubjectsTable {
             String where = ROLE + " " + csv + ", line " + row.line();
             if (row.size() != header.size()) {
                 throw new BadInputException(where + ": expected " + header.size() + " cells as in the header, found "
-                        + row.size());
+                        + row.size() + LikelyCause.extraCells(row, header.size()));
             }
             String id = row.cell(idCol);
             if (id.isEmpty()) {
-                throw new BadInputException(where + ": empty subject id in column '" + idColumn + "'");
+                throw new BadInputException(where + ": empty subject id in column " + CsvText.show(idColumn));
+            }
+            if (id.chars().anyMatch(Character::isISOControl)) {
+                // an id is used in file names and in every message about the subject
+                throw new BadInputException(where + ": subject id " + CsvText.show(id) + " holds a line break, tab"
+                        + " or other control character (a quote left open?)");
             }
             Integer earlier = lineOfId.putIfAbsent(id, row.line());
             if (earlier != null) {
@@ -66,17 +75,17 @@ public final class SubjectsTable {
             where = where + " (subject " + id + ")";
             String group = row.cell(groupCol);
             if (group.isEmpty()) {
-                throw new BadInputException(where + ": empty group in column '" + groupColumn + "'");
+                throw new BadInputException(where + ": empty group in column " + CsvText.show(groupColumn));
             }
             if (allowedGroups != null && !allowedGroups.isEmpty() && !allowedGroups.contains(group)) {
-                throw new BadInputException(where + ": group " + CsvText.show(group) + " in column '" + groupColumn
-                        + "' is not one of " + allowedGroups);
+                throw new BadInputException(where + ": group " + CsvText.show(group) + " in column "
+                        + CsvText.show(groupColumn) + " is not one of " + allowedGroups);
             }
             String site = null;
             if (siteCol >= 0) {
                 site = row.cell(siteCol);
                 if (site.isEmpty()) {
-                    throw new BadInputException(where + ": empty site in column '" + siteColumn + "'");
+                    throw new BadInputException(where + ": empty site in column " + CsvText.show(siteColumn));
                 }
             }
             Map<String, Double> cov = new LinkedHashMap<>();
@@ -84,7 +93,7 @@ public final class SubjectsTable {
                 String cell = row.cell(covCols[k]);
                 double v = Cells.finiteOrNaN(cell);
                 if (!Double.isFinite(v)) {
-                    throw new BadInputException(where + ", column '" + covNames.get(k) + "': covariate "
+                    throw new BadInputException(where + ", column " + CsvText.show(covNames.get(k)) + ": covariate "
                             + Cells.problem(cell));
                 }
                 cov.put(covNames.get(k), v);

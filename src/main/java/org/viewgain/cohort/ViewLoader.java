@@ -6,10 +6,12 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import org.viewgain.spec.BadInputException;
+import org.viewgain.spec.Specs;
 
 /**
- * Loads a view in one of its two layouts: a matrix directory (one file per subject, found by a path pattern
- * containing {@code {subject}}) or an edge table (one CSV row per subject). Every problem with user data is a
+ * Loads a view in one of its layouts: a matrix directory (one file per subject, found by a path pattern containing
+ * {@code {subject}}; text, .npy or .mat), a stacked array (the whole cohort in one .npy or .mat file) or an edge
+ * table (one CSV row per subject). Every problem with user data is a
  * {@link BadInputException} with a one-line message naming the view, file, line or cell and subject.
  */
 public final class ViewLoader {
@@ -30,6 +32,17 @@ public final class ViewLoader {
      */
     public static View matrices(String viewName, Path patternWithSubject, List<String> subjectIds,
                                 boolean missingAllowed, double symmetryTolerance) {
+        return matrices(viewName, patternWithSubject, null, null, subjectIds, missingAllowed, symmetryTolerance);
+    }
+
+    /**
+     * As {@link #matrices(String, Path, List, boolean, double)}, for text, .npy or .mat files (by extension).
+     *
+     * @param variable the variable of .mat files, or null for each file's only numeric variable
+     * @param labels   a file of region names, one per line, or null; names carried by the files must agree with it
+     */
+    public static View matrices(String viewName, Path patternWithSubject, String variable, Path labels,
+                                List<String> subjectIds, boolean missingAllowed, double symmetryTolerance) {
         String pattern = patternWithSubject.toString();
         if (!pattern.contains(SUBJECT_PLACEHOLDER)) {
             throw new BadInputException("view " + viewName + ": matrix path " + pattern + " must contain "
@@ -50,7 +63,7 @@ public final class ViewLoader {
                 throw new BadInputException("view " + viewName + ": no matrix file for subject " + id
                         + ": expected " + file + " (this view may not be missing)");
             }
-            MatrixFile.Parsed p = MatrixFile.read(viewName, id, file, symmetryTolerance);
+            MatrixFile.Parsed p = MatrixFile.read(viewName, id, file, variable, symmetryTolerance);
             if (first == null) {
                 first = p;
             } else if (p.regions() != first.regions()) {
@@ -76,7 +89,44 @@ public final class ViewLoader {
                     + subjectIds.size() + " subjects (pattern " + pattern + ")");
         }
         List<String> names = firstNamed != null ? firstNamed.names() : View.defaultRegionNames(first.regions());
+        if (labels != null) {
+            List<String> listed = LineLists.labels(labels, viewName, first.regions());
+            if (firstNamed != null && !listed.equals(names)) {
+                int k = MatrixFile.firstDifference(listed, names);
+                throw new BadInputException("view " + viewName + ", labels file " + labels + ": region " + (k + 1)
+                        + " is named " + CsvText.show(listed.get(k)) + " but " + CsvText.show(names.get(k))
+                        + " in " + firstNamed.file() + "; region names must agree");
+            }
+            names = listed;
+        }
         return View.graph(viewName, names, upper);
+    }
+
+    /**
+     * A graph view from one array holding every subject's matrix (a .npy file, or a variable of a .mat file):
+     * subjects x regions x regions, or regions x regions x subjects when {@code subjectLast}. The subject of each
+     * slice is on the same line of {@code order} (one id per line; every id must be in the subjects table). A
+     * subject the list does not name, or whose slice is NaN everywhere off the diagonal, has no matrix, which is
+     * an error unless {@code missingAllowed}.
+     *
+     * @param labels a file of region names, one per line, or null for R1..Rn
+     */
+    public static View stacked(String viewName, Path file, String variable, Path order, Path labels,
+                               boolean subjectLast, List<String> subjectIds, boolean missingAllowed,
+                               double symmetryTolerance) {
+        return StackedFile.read(viewName, file, variable, order, labels, subjectLast, subjectIds, missingAllowed,
+                symmetryTolerance);
+    }
+
+    /** Loads a view as the spec describes it. */
+    public static View load(Specs.View v, List<String> subjectIds) {
+        return switch (v.layout()) {
+            case MATRICES -> matrices(v.name(), v.location(), v.variable(), v.labels(), subjectIds,
+                    v.missingAllowed(), v.tolerance());
+            case STACKED -> stacked(v.name(), v.location(), v.variable(), v.subjectOrder(), v.labels(),
+                    v.subjectAxisLast(), subjectIds, v.missingAllowed(), v.tolerance());
+            case TABLE -> edgeTable(v.name(), v.location(), v.idColumn(), subjectIds, v.missingAllowed());
+        };
     }
 
     /**

@@ -52,8 +52,6 @@ public final class DataLoader {
     }
 
     private static View loadView(Specs.View v, List<String> ids) {
-        return v.layout() == Specs.Layout.MATRICES
-                ? ViewLoader.matrices(v.name(), v.location(), ids, v.missingAllowed(), v.tolerance())
-                : ViewLoader.edgeTable(v.name(), v.location(), v.idColumn(), ids, v.missingAllowed());
+        return ViewLoader.load(v, ids);
     }
 }

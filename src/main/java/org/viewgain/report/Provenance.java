@@ -100,9 +100,10 @@ public final class Provenance {
             if (v == null) {
                 continue;
             }
-            if (v.layout() == Specs.Layout.TABLE) {
-                out.put(rel(base, v.location()), sha256(v.location()));
-            } else {
+            for (Path p : v.sharedFiles()) {
+                out.put(rel(base, p), sha256(p));
+            }
+            if (v.layout() == Specs.Layout.MATRICES) {
                 for (String id : ids) {
                     Path p = Path.of(v.location().toString().replace("{subject}", id));
                     if (Files.isRegularFile(p)) {

@@ -274,6 +274,8 @@ final class Section {
             return "a list";
         }
         String t = n.asText();
-        return "'" + (t.length() > 40 ? t.substring(0, 40) + "..." : t) + "'";
+        // escaped so that a message stays on one line whatever the value holds
+        return "'" + (t.length() > 40 ? t.substring(0, 40) + "..." : t).replace("\r", "\\r").replace("\n", "\\n")
+                .replace("\t", "\\t") + "'";
     }
 }

@@ -29,8 +29,8 @@ public final class SpecLoader {
         try {
             text = Files.readString(file, StandardCharsets.UTF_8);
         } catch (IOException e) {
-            throw new BadInputException(file + ": cannot read the spec file (" + e.getClass().getSimpleName() + ": "
-                    + e.getMessage() + ")");
+            String why = Files.isDirectory(file) ? "it is a folder" : IoMessages.ioProblem(e);
+            throw new BadInputException(file + ": cannot read the spec file (" + why + ")", e);
         }
         return parse(text, file);
     }
@@ -59,8 +59,8 @@ public final class SpecLoader {
         Specs.Cohort cohort = cohort(top.section("cohort", true), base);
         Section views = top.section("views", true);
         views.allowOnly(Set.of("source", "target"));
-        Specs.View source = view(views, "source", base, true);
-        Specs.View target = view(views, "target", base, false);
+        Specs.View source = ViewKeys.read(views, "source", base, true);
+        Specs.View target = ViewKeys.read(views, "target", base, false);
         Specs.Features features = features(top.section("features", false), source, target);
         features = FeatureSteps.read(top.section("features", false), features, cohort);
         List<Specs.Method> imputers = methods(top, "imputers", base, false);
@@ -129,40 +129,6 @@ public final class SpecLoader {
         }
         return new Specs.Cohort(subjects == null ? null : base.resolve(subjects).normalize(), id, group, groups,
                 positive, site, covariates, duplicates);
-    }
-
-    private static Specs.View view(Section views, String name, Path base, boolean required) {
-        if (!views.has(name)) {
-            if (required && views.node != null) {
-                views.problems.add(views.key(name), "missing; the source view is required");
-            }
-            return null;
-        }
-        Section s = views.section(name, true);
-        if (s.node == null) {
-            return null;
-        }
-        s.allowOnly(Set.of("matrices", "table", "id", "missing", "tolerance"));
-        boolean matrices = s.has("matrices");
-        boolean table = s.has("table");
-        if (matrices == table) {
-            s.problems.add(s.path, "give exactly one of 'matrices' (a path pattern with {subject}) or 'table' (a CSV)");
-            return null;
-        }
-        String where = s.text(matrices ? "matrices" : "table", null, true);
-        if (where == null) {
-            return null;
-        }
-        if (matrices && !where.contains("{subject}")) {
-            s.problems.add(s.key("matrices"), "the path pattern must contain {subject}, e.g. views/area/{subject}.csv");
-        }
-        if (matrices && s.has("id")) {
-            s.problems.add(s.key("id"), "only a 'table' view has an id column");
-        }
-        String missing = s.choice("missing", List.of("allowed", "not-allowed"), "not-allowed");
-        double tolerance = s.number("tolerance", 1e-6, 0, Double.MAX_VALUE);
-        return new Specs.View(name, matrices ? Specs.Layout.MATRICES : Specs.Layout.TABLE,
-                base.resolve(where).normalize(), s.text("id", null, false), "allowed".equals(missing), tolerance);
     }
 
     private static Specs.Features features(Section s, Specs.View source, Specs.View target) {

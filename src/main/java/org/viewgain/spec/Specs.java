@@ -39,17 +39,49 @@ public final class Specs {
     }
 
     /** Layouts a view can be given in. */
-    public enum Layout { MATRICES, TABLE }
+    public enum Layout {
+        /** One matrix file per subject (text, .npy or .mat). */
+        MATRICES,
+        /** The whole cohort in one .npy or .mat array, with a subject-order list. */
+        STACKED,
+        /** An edge table, one CSV row per subject. */
+        TABLE
+    }
 
     /**
      * Where a view is and how to read it.
      *
-     * @param location  a path pattern with {@code {subject}} for matrices, or the CSV file for a table
-     * @param idColumn  the subject column of a table (null: the first column)
-     * @param tolerance largest allowed |m[i][j] - m[j][i]| of a matrix
+     * @param location        a path pattern with {@code {subject}} for matrices, the array file of a stacked view,
+     *                        or the CSV file for a table
+     * @param idColumn        the subject column of a table (null: the first column)
+     * @param tolerance       largest allowed |m[i][j] - m[j][i]| of a matrix
+     * @param variable        the variable of .mat files (null: each file's only numeric variable)
+     * @param subjectOrder    a stacked view's list of subject ids, one per line, in the order of its slices
+     * @param labels          a file of region names, one per line (null: from the files, or R1..Rn)
+     * @param subjectAxisLast a stacked view's subjects are on its last axis (regions x regions x subjects)
      */
     public record View(String name, Layout layout, Path location, String idColumn, boolean missingAllowed,
-                       double tolerance) {
+                       double tolerance, String variable, Path subjectOrder, Path labels, boolean subjectAxisLast) {
+        /** A view without array options (text matrices or a table). */
+        public View(String name, Layout layout, Path location, String idColumn, boolean missingAllowed,
+                    double tolerance) {
+            this(name, layout, location, idColumn, missingAllowed, tolerance, null, null, null, false);
+        }
+
+        /** The input files whose content does not depend on the subject (all but a matrices pattern). */
+        public List<Path> sharedFiles() {
+            List<Path> out = new java.util.ArrayList<>();
+            if (layout != Layout.MATRICES) {
+                out.add(location);
+            }
+            if (subjectOrder != null) {
+                out.add(subjectOrder);
+            }
+            if (labels != null) {
+                out.add(labels);
+            }
+            return List.copyOf(out);
+        }
     }
 
     /**

@@ -27,13 +27,7 @@ final class YamlTree {
             JsonNode root = mapper.readTree(text);
             return new Parsed(root, new SourceMap(fileName, lines(factory, text)));
         } catch (IOException e) {
-            String msg = e.getMessage() == null ? e.toString() : e.getMessage();
-            int line = 0;
-            if (e instanceof com.fasterxml.jackson.core.JsonProcessingException jpe && jpe.getLocation() != null) {
-                line = jpe.getLocation().getLineNr();
-            }
-            String first = msg.lines().findFirst().orElse(msg).replaceAll("\\s+at \\[Source.*", "").trim();
-            throw new BadInputException(fileName + (line > 0 ? ":" + line : "") + ": not valid YAML: " + first);
+            throw new BadInputException(YamlProblem.describe(e, fileName));
         }
     }
 

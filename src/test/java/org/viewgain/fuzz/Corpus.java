@@ -96,6 +96,28 @@ final class Corpus {
         write(dir.resolve("subjects.csv"), subjects.toString());
         write(dir.resolve("src.csv"), src.toString());
         write(dir.resolve("tgt.csv"), tgt.toString());
+        copyArrays(dir.resolve("arrays"));
+    }
+
+    /**
+     * The numpy/scipy-written views of the same ids a1..a12 (src/test/resources/cohort/arrays/cohort12, provenance
+     * there): {@code thickness.npy} stacked in the order of {@code order.txt}, {@code area/{subject}.mat} for a1..a10.
+     */
+    private static void copyArrays(Path to) {
+        try {
+            Path from = Path.of(Corpus.class.getResource("/cohort/arrays/cohort12").toURI());
+            try (Stream<Path> s = Files.walk(from)) {
+                for (Path p : s.filter(Files::isRegularFile).toList()) {
+                    Path t = to.resolve(from.relativize(p).toString());
+                    Files.createDirectories(t.getParent());
+                    Files.copy(p, t, java.nio.file.StandardCopyOption.REPLACE_EXISTING);
+                }
+            }
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
+        } catch (URISyntaxException e) {
+            throw new IllegalStateException(e);
+        }
     }
 
     private static String matrix(int k) {

@@ -26,7 +26,7 @@ class RegressionCorpusTest {
     @Test
     void givenEveryRegressionInput_whenLoaded_thenRefusedCleanly() {
         List<Path> files = Corpus.files("regressions");
-        assertTrue(files.size() >= 3, "the regression corpus is in place");
+        assertTrue(files.size() >= 7, "the regression corpus is in place");
         for (Path f : files) {
             String name = f.getFileName().toString();
             boolean loaded;
@@ -43,6 +43,20 @@ class RegressionCorpusTest {
                 IDS.forEach(id -> Corpus.write(m.resolve(id + ".csv"), Corpus.read(f)));
                 loaded = Outcomes.loadsOrRefusesInOneLine(() -> ViewLoader.matrices("v", m.resolve("{subject}.csv"),
                         IDS, false, 1e-6), m.toString());
+            } else if (name.startsWith("array-")) {
+                Path m = dir.resolve(name + "-dir");
+                String ext = ArrayLoaderFuzzTest.extension(f);
+                IDS.forEach(id -> ArrayLoaderFuzzTest.write(m.resolve(id + ext), ArrayLoaderFuzzTest.read(f)));
+                java.io.PrintStream err = System.err;
+                java.io.ByteArrayOutputStream stray = new java.io.ByteArrayOutputStream();
+                System.setErr(new java.io.PrintStream(stray, true));
+                try {
+                    loaded = Outcomes.loadsOrRefusesInOneLine(() -> ViewLoader.matrices("v",
+                            m.resolve("{subject}" + ext), IDS, false, 1e-6), m.toString());
+                } finally {
+                    System.setErr(err);
+                }
+                assertTrue(stray.size() == 0, () -> name + ": nothing but our message, yet stderr got " + stray);
             } else {
                 continue;
             }

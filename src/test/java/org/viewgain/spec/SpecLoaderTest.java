@@ -103,6 +103,26 @@ class SpecLoaderTest {
     }
 
     @Test
+    void givenTabIndentedLine8_whenParsed_thenNamesTabsAndLine8() {
+        // issue 16: this used to say only "exp.yaml:7: not valid YAML: while scanning for the next token"
+        String text = GOOD.replace("  positive: patient\n", "  positive: patient\n\tsite: s\n");
+        assertEquals("\tsite: s", text.lines().toList().get(6), "the tab is on line 7 of this text");
+        String m = bad(text).getMessage();
+        assertTrue(m.startsWith("/data/specs/exp.yaml:7: not valid YAML at column 1: a tab character;"), m);
+        assertTrue(m.contains("spaces"), m);
+    }
+
+    @Test
+    void givenUnclosedBracketOrMisindentedKey_whenParsed_thenParserProblemAndWhereItStarted() {
+        String m = bad("experiment: x\ncohort: [a, b\n").getMessage();
+        assertTrue(m.contains("expected ',' or ']', but got the end of the file"), m);
+        assertTrue(m.contains("while parsing a flow sequence started on line 2"), m);
+        m = bad("experiment: x\n  cohort: 1\n").getMessage();
+        assertTrue(m.startsWith("/data/specs/exp.yaml:2: not valid YAML at column 9: mapping values are not"), m);
+        assertTrue(m.contains("indentation"), m);
+    }
+
+    @Test
     void givenDuplicateKey_whenParsed_thenError() {
         BadInputException e = bad(GOOD.replace("seed: 7", "seed: 7\nseed: 8"));
         assertTrue(e.getMessage().contains("not valid YAML") && e.getMessage().contains("seed"), e.getMessage());
