@@ -29,7 +29,7 @@ final class ImportanceChart {
         }
         Map<String, List<CsvRows.Row>> by = new LinkedHashMap<>();
         for (CsvRows.Row r : d.importance.rows()) {
-            if (Double.isFinite(r.d("value"))) {
+            if (Double.isFinite(r.d("estimate"))) {
                 by.computeIfAbsent(Names.key(r) + "|" + r.s("kind"), k -> new ArrayList<>()).add(r);
             }
         }
@@ -38,7 +38,7 @@ final class ImportanceChart {
         StringBuilder b = new StringBuilder("<div class=\"grid\">");
         for (String k : keys.subList(0, Math.min(MAX_CHARTS, keys.size()))) {
             List<CsvRows.Row> rows = new ArrayList<>(by.get(k));
-            rows.sort(Comparator.comparingDouble((CsvRows.Row r) -> Math.abs(r.d("value"))).reversed());
+            rows.sort(Comparator.comparingDouble((CsvRows.Row r) -> Math.abs(r.d("estimate"))).reversed());
             List<CsvRows.Row> top = rows.subList(0, Math.min(TOP, rows.size()));
             CsvRows.Row first = top.get(0);
             String caption = "Top " + top.size() + " features of " + Names.pipeline(first.s("imputer"),
@@ -76,12 +76,12 @@ final class ImportanceChart {
         top.forEach(r -> seen.merge(r.s("feature"), 1, Integer::sum));
         for (String v : VIEWS) {
             for (CsvRows.Row r : top) {
-                data.addValue(r.s("view").equals(v) ? r.d("value") : 0, v, label(r, seen));
+                data.addValue(r.s("view").equals(v) ? r.d("estimate") : 0, v, label(r, seen));
             }
         }
         for (CsvRows.Row r : top) {
             if (!VIEWS.contains(r.s("view"))) {
-                data.addValue(r.d("value"), r.s("view"), label(r, seen));
+                data.addValue(r.d("estimate"), r.s("view"), label(r, seen));
             }
         }
         StackedBarRenderer renderer = new StackedBarRenderer();

@@ -24,7 +24,7 @@ final class NullHistograms {
         Map<String, List<Double>> nulls = new LinkedHashMap<>();
         Map<String, String> labels = new LinkedHashMap<>();
         for (CsvRows.Row r : d.permutationNull.rows()) {
-            double v = r.d("value");
+            double v = r.d("estimate");
             if (Double.isFinite(v)) {
                 String k = Names.key(r) + "|" + r.s("metric");
                 nulls.computeIfAbsent(k, x -> new ArrayList<>()).add(v);

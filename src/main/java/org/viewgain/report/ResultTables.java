@@ -234,7 +234,7 @@ public final class ResultTables {
 
     /** importance.csv: selection frequency and model importance per pipeline and feature. */
     public static CsvTable importance(List<Importance.Row> rows) {
-        CsvTable t = new CsvTable("imputer", "feature_set", "classifier", "feature", "view", "kind", "value");
+        CsvTable t = new CsvTable("imputer", "feature_set", "classifier", "feature", "view", "kind", "estimate");
         for (Importance.Row r : rows) {
             t.row().text(r.pipeline().imputer()).text(r.pipeline().featureSet().label()).text(r.pipeline().classifier())
                     .text(r.feature()).text(r.view()).text(r.kind()).number(r.value());

@@ -27,7 +27,8 @@ public final class SignificanceTables {
     }
 
     public static CsvTable permutationNull(List<PermutationResult> perms) {
-        CsvTable t = new CsvTable("imputer", "feature_set", "classifier", "metric", "permutation", "value");
+        CsvTable t = new CsvTable("imputer", "feature_set", "classifier", "metric", "permutation",
+                "estimate");
         for (PermutationResult p : perms) {
             for (int k = 0; k < p.null_().length; k++) {
                 t.row().text(p.pipeline().imputer()).text(p.pipeline().featureSet().label())

@@ -170,6 +170,11 @@ class HtmlReportTest {
         assertTrue(p.rows().stream().filter(r -> r.s("classifier").equals("svm"))
                 .allMatch(r -> r.s("score_kind").equals("decision_value")));
         assertTrue(p.rows().stream().anyMatch(r -> r.s("classifier").equals("svm")));
+        // one name for the value column of every table of estimates (the fixtures keep older runs' 'value')
+        for (String table : List.of("metrics.csv", "fold_metrics.csv", "importance.csv")) {
+            assertTrue(CsvRows.readIfPresent(run, table).has("estimate"), table);
+            assertFalse(CsvRows.readIfPresent(run, table).has("value"), table);
+        }
     }
 
     @Test
