@@ -163,6 +163,37 @@ public final class CheckReport {
      * features did not finish in 30 minutes; docs/benchmarks.md). Empty when no such pipeline is planned.
      */
     public static String costWarning(Experiment ex) {
+        return forestWarning(ex) + kernelWarning(ex);
+    }
+
+    /** Training rows above which {@code svm-rbf}'s kernel matrix (8 n^2 bytes per concurrent fit) is flagged. */
+    static final int KERNEL_ROWS = 8_000;
+
+    /**
+     * A warning when {@code svm-rbf} will hold a kernel matrix of more than {@value #KERNEL_ROWS} training rows
+     * (8 n^2 bytes each, one per concurrent fit: 512 MB at 8,000 rows); empty otherwise.
+     */
+    static String kernelWarning(Experiment ex) {
+        int rows = 0;
+        for (org.viewgain.engine.Pipeline p : ex.pipelines()) {
+            if (ex.classifier(p.classifier()).method().method().equals("svm-rbf")) {
+                rows = Math.max(rows, ex.data().n());
+            }
+        }
+        return kernelWarning(rows);
+    }
+
+    static String kernelWarning(int rows) {
+        if (rows <= KERNEL_ROWS) {
+            return "";
+        }
+        long mb = 8L * rows * rows / (1L << 20);
+        return "[viewgain] warning: svm-rbf keeps an n x n kernel matrix of its training rows: up to " + rows
+                + " rows need up to " + mb + " MB per concurrent fit; give the JVM enough heap (JAVA_OPTS=-Xmx...), "
+                + "use fewer --threads, or smile-svm-rbf, which keeps no matrix\n";
+    }
+
+    private static String forestWarning(Experiment ex) {
         int widest = 0;
         for (org.viewgain.engine.Pipeline p : ex.pipelines()) {
             if (ex.classifier(p.classifier()).method().method().equals("smile-random-forest")) {
