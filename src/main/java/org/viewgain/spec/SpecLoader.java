@@ -73,9 +73,12 @@ public final class SpecLoader {
         Specs.Significance significance = significance(top.section("significance", false), sets, validation);
         FeatureSteps.checkScheme(features, validation, problems);
 
+        boolean defaultSets = !top.has("feature-sets");
         for (int i = 0; i < sets.size(); i++) {
             FeatureSet fs = sets.get(i);
-            String key = "feature-sets[" + i + "]";
+            // a spec without feature-sets gets the default, which it never wrote: say so rather than name a line
+            String key = defaultSets ? "feature-sets (not given; the default is [source, source+imputed])"
+                    : "feature-sets[" + i + "]";
             if ((fs.needsImputer() || fs.needsObservedTarget()) && target == null) {
                 problems.add(key, "'" + fs.label() + "' needs a target view, but views.target is not given");
             }

@@ -95,6 +95,15 @@ class SpecLoaderTest {
     }
 
     @Test
+    void givenNoFeatureSetsAndNoTargetView_whenParsed_thenTheErrorSaysTheDefaultWasUsed() {
+        String text = GOOD.replace("  target: { table: b.csv, missing: allowed }\n", "")
+                .replaceAll("(?m)^feature-sets:.*\n", "");
+        BadInputException e = bad(text);
+        assertTrue(e.getMessage().contains("feature-sets (not given; the default is [source, source+imputed]): "
+                + "'source+imputed' needs a target view"), e.getMessage());
+    }
+
+    @Test
     void givenBrokenYaml_whenParsed_thenOneLineWithLineNumber() {
         BadInputException e = bad("experiment: x\ncohort: [a, b\n");
         assertTrue(e.getMessage().startsWith("/data/specs/exp.yaml:"), e.getMessage());
