@@ -29,6 +29,19 @@ public final class ClassifierRegistry {
     private ClassifierRegistry() {
     }
 
+    /**
+     * The versions of the machine-learning libraries on the class path, as their own jars state them (Smile's
+     * manifest, Weka's {@code weka.core.Version}), so that provenance cannot drift from the build; "unknown" when a
+     * jar does not say.
+     */
+    public static Map<String, String> libraryVersions() {
+        Map<String, String> out = new LinkedHashMap<>();
+        String smile = smile.classification.RandomForest.class.getPackage().getImplementationVersion();
+        out.put("smile", smile == null ? "unknown" : smile);
+        out.put("weka", weka.core.Version.VERSION);
+        return out;
+    }
+
     /** Method names in a stable order, {@code weka} last. */
     public static List<String> methods() {
         return List.copyOf(FACTORIES.keySet());

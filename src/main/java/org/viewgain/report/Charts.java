@@ -124,6 +124,11 @@ final class Charts {
     /** A chart as a figure, or a plain note when it cannot be drawn (e.g. no fonts on a bare machine). */
     static String figure(java.util.function.Supplier<JFreeChart> chart, int width, int height, String caption,
                          Redactor redact) {
+        return ChartBatch.submit(() -> draw(chart, width, height, caption, redact));
+    }
+
+    private static String draw(java.util.function.Supplier<JFreeChart> chart, int width, int height, String caption,
+                               Redactor redact) {
         try {
             return Html.img(dataUri(style(chart.get()), width, height, redact), caption, width);
         } catch (RuntimeException | Error e) {

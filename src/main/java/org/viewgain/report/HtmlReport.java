@@ -45,6 +45,18 @@ public final class HtmlReport {
 
     /** The report of {@code runDir} as HTML text. */
     public static String render(Path runDir, boolean redactIds) throws IOException {
+        try (ChartBatch charts = ChartBatch.open()) {
+            return charts.fill(build(runDir, redactIds));
+        }
+    }
+
+    /** The report with every chart drawn in turn on the calling thread (to check the batch changes nothing). */
+    static String renderInTurn(Path runDir, boolean redactIds) throws IOException {
+        return build(runDir, redactIds);
+    }
+
+    /** The report's text, with a marker for each chart being drawn in the open {@link ChartBatch}. */
+    private static String build(Path runDir, boolean redactIds) throws IOException {
         ReportData d = ReportData.read(runDir, redactIds);
         String experiment = d.run.path("experiment").asText("experiment");
         StringBuilder b = new StringBuilder(1 << 20);

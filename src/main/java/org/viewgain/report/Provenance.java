@@ -40,7 +40,7 @@ public final class Provenance {
         record.put("java_vendor", System.getProperty("java.vendor"));
         record.put("os", System.getProperty("os.name") + " " + System.getProperty("os.version"));
         record.put("arch", System.getProperty("os.arch"));
-        record.put("libraries", Map.of("smile", "3.1.1", "weka", "3.8.6"));
+        record.put("libraries", org.viewgain.classify.ClassifierRegistry.libraryVersions());
         record.put("spec_file", spec.specFile().toAbsolutePath().toString());
         record.put("spec_text", spec.text());
         record.put("input_sha256", inputHashes(spec, subjectIds));

@@ -196,6 +196,15 @@ class HtmlReportTest {
     }
 
     @Test
+    void givenChartsDrawnOnAllCores_whenReported_thenTheSameBytesAsDrawingThemInTurn() throws IOException {
+        Path r = fullRun();
+        String parallel = HtmlReport.render(r, false);
+        assertEquals(HtmlReport.renderInTurn(r, false), parallel);
+        assertFalse(parallel.contains("\u0000"), "no marker left");
+        assertTrue(parallel.contains("data:image/png;base64,"));
+    }
+
+    @Test
     void givenImputations_whenReported_thenTheTableShowsSkillAgainstTheMeanImputerAsInTheCsv() throws IOException {
         Path r = fullRun();
         Document doc = Jsoup.parse(HtmlReport.render(r, false));
