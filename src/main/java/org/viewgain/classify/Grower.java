@@ -6,7 +6,8 @@ import java.util.SplittableRandom;
 /**
  * Grows the trees of a {@link BinnedForest} on one set of binned training rows. Its work arrays are allocated once
  * per fit and reused by every tree and node: the bootstrap counts, the in-bag rows (partitioned in place, each node
- * owning a contiguous range), the class histogram of one feature with its bitmap of occupied bins, and the growing tree.
+ * owning a contiguous range), the class histogram of one feature with its bitmap of occupied bins, and the growing
+ * tree.
  */
 final class Grower {
     private final BinnedForest.Bins bins;
@@ -29,7 +30,6 @@ final class Grower {
     private final long[] occupied = new long[(BinnedForest.MAX_BINS + 63) / 64];
     private final long[] parent;
     private final long[] leftCounts;
-    private final long[] bestLeft;
 
     // the tree being grown
     private int[] feature = new int[64];
@@ -58,7 +58,6 @@ final class Grower {
         nodeCounts = new long[n];
         parent = new long[classes];
         leftCounts = new long[classes];
-        bestLeft = new long[classes];
     }
 
     /** Grows one tree from its own generator, adding the Gini decrease of each split to {@code importance}. */
@@ -144,7 +143,8 @@ final class Grower {
     private double bestDecrease;
 
     /**
-     * Looks for the best split of the rows {@code [lo, hi)} among {@code mtry} features drawn without replacement;
+     * Looks for the best split of the rows {@code [lo, hi)} among {@code mtry} features drawn without replacement
+     * (two classes: {@link #splitTwoClasses}; more: a class histogram per feature, below);
      * sets {@link #bestFeature}, {@link #bestBin} and {@link #bestDecrease} and returns 0, or -1 when no drawn
      * feature splits the node into two children of at least {@code minLeaf} rows with a positive decrease.
      */
@@ -192,9 +192,6 @@ final class Grower {
                     if (wl == w) {
                         continue; // the last occupied bin: no rows would go right
                     }
-                    if (classes == 2 && !mayBeat(wl, w, parentScore, best)) {
-                        continue;
-                    }
                     double d = decrease(wl, w, parentScore);
                     if (d > best) {
                         best = d;
@@ -216,13 +213,6 @@ final class Grower {
         if (wl < minLeaf || wr < minLeaf) {
             return 0;
         }
-        if (classes == 2) {
-            long l0 = leftCounts[0];
-            long l1 = wl - l0;
-            long r0 = parent[0] - l0;
-            long r1 = wr - r0;
-            return (double) (l0 * l0 + l1 * l1) / wl + (double) (r0 * r0 + r1 * r1) / wr - parentScore;
-        }
         double sl = 0;
         double sr = 0;
         for (int c = 0; c < classes; c++) {
@@ -235,10 +225,10 @@ final class Grower {
     }
 
     /**
-     * {@link #split} for two classes, the common case, with the same candidates, order and arithmetic: the node's
-     * bootstrap counts are gathered once into a contiguous array (total and class-1 count per row, packed in one long)
-     * and each drawn feature's histogram is one packed array, so the inner loop reads one byte per row at random,
-     * the rest in order, and updates one histogram cell per row.
+     * {@link #split} for two classes, the common case: the same candidates in the same order and the same
+     * arithmetic for each decrease. The node's bootstrap counts are gathered once into a contiguous array (total and
+     * class-1 count per row, packed in one long) and each drawn feature's histogram is one packed array, so the inner
+     * loop reads one byte per row at random, the rest in order, and updates one histogram cell per row.
      */
     private int splitTwoClasses(int lo, int hi, long w, SplittableRandom rng) {
         double parentScore = sumSquares(parent) / (double) w;
@@ -286,7 +276,8 @@ final class Grower {
                     long r1 = wr - r0;
                     long sl = l0 * l0 + l1 * l1;
                     long sr = r0 * r0 + r1 * r1;
-                    // division-free screen first (see mayBeat); then the exact value, as decrease computes it
+                    // a division-free screen (sum(l^2) wr + sum(r^2) wl against (best + parentScore) wl wr, with a
+                    // margin far above rounding error) rejects candidates that cannot win; then the exact decrease
                     if (!((double) sl * wr + (double) sr * wl > (best + parentScore) * wl * wr * (1 - 1e-9))) {
                         continue;
                     }
@@ -299,26 +290,6 @@ final class Grower {
             }
         }
         return bestFeature < 0 ? -1 : 0;
-    }
-
-    /**
-     * A division-free screen for two classes: false only when the split with {@code wl} rows on the left certainly
-     * does not decrease impurity by more than {@code best} ({@code sum(l^2) wr + sum(r^2) wl} against {@code (best +
-     * parentScore) wl wr}, with a relative margin far above rounding error), so that {@link #decrease} and its two
-     * divisions run only for candidates that may win, and the chosen split is the one the plain scan would choose.
-     */
-    private boolean mayBeat(long wl, long w, double parentScore, double best) {
-        long wr = w - wl;
-        if (wl < minLeaf || wr < minLeaf) {
-            return false;
-        }
-        long l0 = leftCounts[0];
-        long l1 = wl - l0;
-        long r0 = parent[0] - l0;
-        long r1 = wr - r0;
-        double lhs = (double) (l0 * l0 + l1 * l1) * wr + (double) (r0 * r0 + r1 * r1) * wl;
-        double rhs = (best + parentScore) * wl * wr;
-        return lhs > rhs * (1 - 1e-9);
     }
 
     private void keep(int f, int bin, double d) {

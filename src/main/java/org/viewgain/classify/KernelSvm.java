@@ -8,6 +8,7 @@ import org.viewgain.cohort.Rows;
 import org.viewgain.folds.FitContext;
 import org.viewgain.spec.ParamDef;
 import org.viewgain.spec.Params;
+import org.viewgain.stats.Distances;
 
 /**
  * {@code svm-rbf}: the soft-margin support vector machine (Cortes &amp; Vapnik 1995, Machine Learning 20:273-297)
@@ -76,7 +77,7 @@ public final class KernelSvm implements ClassifierMethod {
         Map<Double, double[][]> byGamma = new HashMap<>();
         List<Model> out = new ArrayList<>(grid.size());
         for (Params params : grid) {
-            double gamma = SmileSvm.gamma(params.get("gamma"), x.x());
+            double gamma = RbfKernel.gamma(params.get("gamma"), x.x());
             double[][] k = byGamma.computeIfAbsent(gamma, g -> kernels.matrix(x.x(), g));
             out.add(fit(k, gamma, x.x(), y, classes, params));
         }
@@ -84,15 +85,11 @@ public final class KernelSvm implements ClassifierMethod {
     }
 
     private static Model fit(double[][] k, double gamma, double[][] x, int[] y, int classes, Params params) {
-        int machines = classes == 2 ? 1 : classes;
+        int machines = OneAgainstRest.machines(classes);
         List<Machine> fitted = new ArrayList<>(machines);
         boolean converged = true;
         for (int m = 0; m < machines; m++) {
-            int positive = classes == 2 ? 1 : m;
-            int[] signs = new int[y.length];
-            for (int i = 0; i < y.length; i++) {
-                signs[i] = y[i] == positive ? 1 : -1;
-            }
+            int[] signs = OneAgainstRest.signs(y, classes, m);
             Smo.Solution s = Smo.solve(k, signs, params.getDouble("C"), params.getDouble("tolerance"),
                     params.getInt("iterations"));
             converged &= s.converged();
@@ -102,22 +99,7 @@ public final class KernelSvm implements ClassifierMethod {
         return new Model() {
             @Override
             public Predictions predict(Rows rows) {
-                int[] labels = new int[rows.n()];
-                double[][] scores = new double[rows.n()][classes];
-                for (int i = 0; i < rows.n(); i++) {
-                    double[] row = rows.x()[i];
-                    if (classes == 2) {
-                        double f = fitted.get(0).decision(row);
-                        scores[i][0] = -f;
-                        scores[i][1] = f;
-                    } else {
-                        for (int c = 0; c < classes; c++) {
-                            scores[i][c] = fitted.get(c).decision(row);
-                        }
-                    }
-                    labels[i] = TrainingLabels.argmax(scores[i]);
-                }
-                return new Predictions(labels, scores);
+                return OneAgainstRest.predict(rows, classes, (m, row) -> fitted.get(m).decision(row));
             }
 
             @Override
@@ -149,7 +131,7 @@ public final class KernelSvm implements ClassifierMethod {
         double decision(double[] row) {
             double f = -rho;
             for (int s = 0; s < vectors.length; s++) {
-                f += coef[s] * Math.exp(-gamma * RbfKernel.squaredDistance(vectors[s], row));
+                f += coef[s] * Math.exp(-gamma * Distances.squared(vectors[s], row));
             }
             return f;
         }

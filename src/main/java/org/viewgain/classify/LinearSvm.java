@@ -138,35 +138,15 @@ public final class LinearSvm implements ClassifierMethod {
     @Override
     public Model fit(FitContext ctx, Rows x, int[] y, int classes, Params params) {
         TrainingLabels.check(method(), x, y, classes);
-        int machines = classes == 2 ? 1 : classes;
+        int machines = OneAgainstRest.machines(classes);
         Machine[] fitted = new Machine[machines];
         for (int m = 0; m < machines; m++) {
-            int positive = classes == 2 ? 1 : m;
-            int[] signs = new int[y.length];
-            for (int i = 0; i < y.length; i++) {
-                signs[i] = y[i] == positive ? 1 : -1;
-            }
+            int[] signs = OneAgainstRest.signs(y, classes, m);
             fitted[m] = solve(x.x(), signs, params.getDouble("C"), params.getDouble("tolerance"),
                     params.getInt("iterations"), Seeds.derive(ctx.seed(), "svm-linear", m));
         }
-        ClassifierMethod.Model model = rows -> {
-            int[] labels = new int[rows.n()];
-            double[][] scores = new double[rows.n()][classes];
-            for (int i = 0; i < rows.n(); i++) {
-                double[] row = rows.x()[i];
-                if (classes == 2) {
-                    double f = fitted[0].decision(row);
-                    scores[i][0] = -f;
-                    scores[i][1] = f;
-                } else {
-                    for (int c = 0; c < classes; c++) {
-                        scores[i][c] = fitted[c].decision(row);
-                    }
-                }
-                labels[i] = TrainingLabels.argmax(scores[i]);
-            }
-            return new Predictions(labels, scores);
-        };
+        ClassifierMethod.Model model = rows -> OneAgainstRest.predict(rows, classes,
+                (m, row) -> fitted[m].decision(row));
         double[][] w = new double[machines][];
         boolean converged = true;
         for (int m = 0; m < machines; m++) {

@@ -9,6 +9,31 @@ final class RbfKernel {
     private RbfKernel() {
     }
 
+    /**
+     * The gamma a parameter value stands for on these training rows: a number as it is, {@code scale} as
+     * {@code 1 / (p * var)} with {@code var} the variance of all training values (population form), as
+     * scikit-learn's default ({@code 1 / p} when the values are constant).
+     */
+    static double gamma(Object setting, double[][] x) {
+        if (setting instanceof Number n) {
+            return n.doubleValue();
+        }
+        double sum = 0;
+        double sumSq = 0;
+        long count = 0;
+        for (double[] row : x) {
+            for (double v : row) {
+                sum += v;
+                sumSq += v * v;
+                count++;
+            }
+        }
+        double mean = sum / count;
+        double var = sumSq / count - mean * mean;
+        int p = x[0].length;
+        return var > 0 ? 1.0 / (p * var) : 1.0 / p;
+    }
+
     static double[][] matrix(double[][] x, double gamma) {
         int n = x.length;
         double[] norms = new double[n];
@@ -27,30 +52,6 @@ final class RbfKernel {
             }
         }
         return k;
-    }
-
-    /** {@code |a - b|^2} summed directly (as LIBSVM's prediction does), in four running sums. */
-    static double squaredDistance(double[] a, double[] b) {
-        double s0 = 0;
-        double s1 = 0;
-        double s2 = 0;
-        double s3 = 0;
-        int j = 0;
-        for (; j + 3 < a.length; j += 4) {
-            double d0 = a[j] - b[j];
-            double d1 = a[j + 1] - b[j + 1];
-            double d2 = a[j + 2] - b[j + 2];
-            double d3 = a[j + 3] - b[j + 3];
-            s0 += d0 * d0;
-            s1 += d1 * d1;
-            s2 += d2 * d2;
-            s3 += d3 * d3;
-        }
-        for (; j < a.length; j++) {
-            double d = a[j] - b[j];
-            s0 += d * d;
-        }
-        return (s0 + s1) + (s2 + s3);
     }
 
     /** {@code a.b} in four running sums (summed in a fixed order, so the result is deterministic). */

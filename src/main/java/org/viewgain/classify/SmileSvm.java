@@ -52,62 +52,20 @@ public final class SmileSvm implements ClassifierMethod {
         return "decision_value";
     }
 
-    /** The gamma a parameter value stands for on these training rows. */
-    static double gamma(Object setting, double[][] x) {
-        if (setting instanceof Number n) {
-            return n.doubleValue();
-        }
-        double sum = 0;
-        double sumSq = 0;
-        long count = 0;
-        for (double[] row : x) {
-            for (double v : row) {
-                sum += v;
-                sumSq += v * v;
-                count++;
-            }
-        }
-        double mean = sum / count;
-        double var = sumSq / count - mean * mean;
-        int p = x[0].length;
-        return var > 0 ? 1.0 / (p * var) : 1.0 / p;
-    }
-
     @Override
     public Model fit(FitContext ctx, Rows x, int[] y, int classes, Params params) {
         TrainingLabels.check(method(), x, y, classes);
         // Smile's Gaussian kernel is exp(-|x-x'|^2 / (2 sigma^2)), so sigma = sqrt(1 / (2 gamma)).
-        MercerKernel<double[]> kernel = new GaussianKernel(Math.sqrt(1.0 / (2.0 * gamma(params.get("gamma"), x.x()))));
-        int machines = classes == 2 ? 1 : classes;
+        double gamma = RbfKernel.gamma(params.get("gamma"), x.x());
+        MercerKernel<double[]> kernel = new GaussianKernel(Math.sqrt(1.0 / (2.0 * gamma)));
+        int machines = OneAgainstRest.machines(classes);
         List<SVM<double[]>> fitted = new ArrayList<>(machines);
         for (int m = 0; m < machines; m++) {
-            int positive = classes == 2 ? 1 : m;
-            int[] signs = new int[y.length];
-            for (int i = 0; i < y.length; i++) {
-                signs[i] = y[i] == positive ? 1 : -1;
-            }
+            int[] signs = OneAgainstRest.signs(y, classes, m);
             MathEx.setSeed(Seeds.derive(ctx.seed(), "svm", m));
             fitted.add(SVM.fit(x.x(), signs, kernel, params.getDouble("C"), params.getDouble("tolerance"),
                     params.getInt("epochs")));
         }
-        ClassifierMethod.Model model = rows -> {
-            int[] labels = new int[rows.n()];
-            double[][] scores = new double[rows.n()][classes];
-            for (int i = 0; i < rows.n(); i++) {
-                double[] row = rows.x()[i];
-                if (classes == 2) {
-                    double f = fitted.get(0).score(row);
-                    scores[i][0] = -f;
-                    scores[i][1] = f;
-                } else {
-                    for (int c = 0; c < classes; c++) {
-                        scores[i][c] = fitted.get(c).score(row);
-                    }
-                }
-                labels[i] = TrainingLabels.argmax(scores[i]);
-            }
-            return new Predictions(labels, scores);
-        };
-        return model;
+        return rows -> OneAgainstRest.predict(rows, classes, (m, row) -> fitted.get(m).score(row));
     }
 }

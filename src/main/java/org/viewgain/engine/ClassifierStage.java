@@ -228,7 +228,7 @@ final class ClassifierStage {
                 from = to;
             }
         }
-        String tuneBy = ex.spec().validation().tuneBy().replace('-', '_');
+        String tuneBy = ex.spec().validation().tuneByColumn();
         double[] out = new double[points.size()];
         for (int g = 0; g < points.size(); g++) {
             double v = metrics(yTrain, pred[g], haveScores[g] ? scores[g] : null, classes).get(tuneBy);

@@ -107,7 +107,7 @@ final class Permutations {
             List<Callable<Double>> tasks = new ArrayList<>();
             for (int[] job : jobs) {
                 tasks.add(() -> {
-                    double v = statistic(ex.pipelines().get(job[0]), job[1] + 1, sig.metric());
+                    double v = statistic(ex.pipelines().get(job[0]), job[1] + 1, sig.metricColumn());
                     record.put(job[0], job[1], v);
                     counter.done();
                     return v;
@@ -134,15 +134,15 @@ final class Permutations {
         for (int p = 0; p < pipelines; p++) {
             Pipeline pl = ex.pipelines().get(p);
             if (stop[p] == null) {
-                out.add(new PermutationResult(pl, sig.metric(), observed.get(p), new double[0], 0, Double.NaN, false,
-                        PermutedLabels.withinSites(ex)));
+                out.add(new PermutationResult(pl, sig.metricColumn(), observed.get(p), new double[0], 0, Double.NaN,
+                        false, PermutedLabels.withinSites(ex)));
                 continue;
             }
             double[] nul = Arrays.copyOf(values[p], stop[p].draws());
             boolean early = stop[p].stoppedEarly();
             double pv = early ? stop[p].pValue() : PermutationP.ojalaGarriga(stop[p].exceedances(), stop[p].draws());
-            out.add(new PermutationResult(pl, sig.metric(), observed.get(p), nul, stop[p].exceedances(), pv, early,
-                    PermutedLabels.withinSites(ex)));
+            out.add(new PermutationResult(pl, sig.metricColumn(), observed.get(p), nul, stop[p].exceedances(), pv,
+                    early, PermutedLabels.withinSites(ex)));
         }
         return out;
     }
@@ -171,7 +171,7 @@ final class Permutations {
                 ps.addAll(stage.run(p, k, plan, r, f, InnerFolds.of(ex, plan, labels, r, f), imputed, labels)
                         .predictions());
             }
-            sum += Evaluation.compute(ex, ps).get(metric.replace('-', '_'));
+            sum += Evaluation.compute(ex, ps).get(metric);
         }
         return sum / plan.repeats();
     }

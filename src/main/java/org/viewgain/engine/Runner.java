@@ -271,7 +271,7 @@ public final class Runner {
                 // permutation-major, a few permutations at a time: the pipelines of one permutation share its
                 // imputations, which are dropped after each batch
                 TreeMap<Integer, List<Callable<Void>>> byPermutation = new TreeMap<>();
-                String metric = ex.spec().significance().metric();
+                String metric = ex.spec().significance().metricColumn();
                 for (String key : mine) {
                     if (key.charAt(0) == 'p' && known(key) == null) {
                         String[] parts = key.split("/");
@@ -302,7 +302,7 @@ public final class Runner {
             RunResults res = collect(state);
             // phase three: permutation test
             if (ex.spec().significance().permutations() > 0) {
-                String metric = ex.spec().significance().metric().replace('-', '_');
+                String metric = ex.spec().significance().metricColumn();
                 List<Double> observed = new ArrayList<>();
                 for (Pipeline p : ex.pipelines()) {
                     double sum = 0;

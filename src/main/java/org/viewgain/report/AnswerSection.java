@@ -143,7 +143,8 @@ final class AnswerSection {
     private static String interval(CsvRows.Row r, String level) {
         double lo = r.d("ci_low");
         double hi = r.d("ci_high");
-        return Double.isFinite(lo) && Double.isFinite(hi) ? " (unadjusted " + level + " interval " + Html.signed3(lo) + " to "
+        return Double.isFinite(lo) && Double.isFinite(hi) ? " (unadjusted " + level + " interval "
+                + Html.signed3(lo) + " to "
                 + Html.signed3(hi) + ")" : "";
     }
 

@@ -24,7 +24,12 @@ final class Chance {
         }
     }
 
-    private boolean beats(CsvRows.Row r) {
+    /** One row per pipeline (its balanced-accuracy test when there are several), in permutations.csv order. */
+    java.util.Collection<CsvRows.Row> pipelines() {
+        return java.util.Collections.unmodifiableCollection(main.values());
+    }
+
+    boolean beats(CsvRows.Row r) {
         return r != null && r.d("p_value") <= d.alpha();
     }
 

@@ -67,7 +67,7 @@ public final class ResultTables {
     public static CsvTable hyperparameters(RunResults res) {
         CsvTable t = new CsvTable("repetition", "fold", "stage", "imputer", "feature_set", "classifier", "chosen",
                 "inner_score", "tuned_by", "grid_size", "unconverged_fits");
-        String tuneBy = SignificanceTables.column(res.experiment().spec().validation().tuneBy());
+        String tuneBy = res.experiment().spec().validation().tuneByColumn();
         for (RunResults.Choice c : res.choices()) {
             t.row().integer(c.repeat() + 1).integer(c.fold() + 1).text(c.stage()).text(c.imputer())
                     .text(c.featureSet()).text(c.classifier()).text(c.params()).number(c.innerScore())

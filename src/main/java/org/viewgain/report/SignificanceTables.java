@@ -14,16 +14,11 @@ public final class SignificanceTables {
                 "exceedances", "p_value", "stopped_early", "exchangeability");
         for (PermutationResult p : perms) {
             t.row().text(p.pipeline().imputer()).text(p.pipeline().featureSet().label()).text(p.pipeline().classifier())
-                    .text(column(p.metric())).number(p.observed()).integer(p.null_().length)
+                    .text(p.metric()).number(p.observed()).integer(p.null_().length)
                     .integer(p.exceedances()).number(p.pValue()).text(p.stoppedEarly() ? "true" : "false")
                     .text(p.withinSites() ? "within site" : "whole cohort");
         }
         return t;
-    }
-
-    /** A metric as every table spells it ({@code balanced_accuracy}), whatever the spec's spelling. */
-    static String column(String metric) {
-        return metric.replace('-', '_');
     }
 
     public static CsvTable permutationNull(List<PermutationResult> perms) {
@@ -32,7 +27,7 @@ public final class SignificanceTables {
         for (PermutationResult p : perms) {
             for (int k = 0; k < p.null_().length; k++) {
                 t.row().text(p.pipeline().imputer()).text(p.pipeline().featureSet().label())
-                        .text(p.pipeline().classifier()).text(column(p.metric())).integer(k + 1)
+                        .text(p.pipeline().classifier()).text(p.metric()).integer(k + 1)
                         .number(p.null_()[k]);
             }
         }

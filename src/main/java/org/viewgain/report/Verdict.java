@@ -29,7 +29,7 @@ public final class Verdict {
         String level = CsvTable.formatNumber(alpha);
         List<String> parts = new ArrayList<>();
         parts.add(comparison(d, alpha, level));
-        parts.add(chance(d, alpha, level));
+        parts.add(chance(d, level));
         return String.join("; ", parts) + ".";
     }
 
@@ -50,7 +50,7 @@ public final class Verdict {
         List<String> wins = new ArrayList<>();
         int losses = 0;
         String adjust = "";
-        String conf = confidence(d);
+        String conf = AnswerSection.level(d);
         for (CsvRows.Row r : primary.values()) {
             adjust = r.s("adjust_method");
             double p = Double.isFinite(r.d("p_adjusted")) ? r.d("p_adjusted") : r.d("p_value");
@@ -93,25 +93,14 @@ public final class Verdict {
         return r.s("test").equals("corrected-t") && r.s("metric").equals("balanced_accuracy");
     }
 
-    private static String confidence(ReportData d) {
-        return AnswerSection.level(d);
-    }
-
-    private static String chance(ReportData d, double alpha, String level) {
+    private static String chance(ReportData d, String level) {
         if (d.permutations == null || d.permutations.rows().isEmpty()) {
             return "chance not tested (significance.permutations: 0)";
         }
-        Map<String, CsvRows.Row> main = new LinkedHashMap<>();
-        for (CsvRows.Row r : d.permutations.rows()) {
-            String k = Names.key(r);
-            CsvRows.Row had = main.get(k);
-            if (had == null || r.s("metric").equals("balanced_accuracy")
-                    && !had.s("metric").equals("balanced_accuracy")) {
-                main.put(k, r);
-            }
-        }
-        long beat = main.values().stream().filter(r -> r.d("p_value") <= alpha).count();
-        String metric = Names.metric(main.values().iterator().next().s("metric"));
+        Chance chance = new Chance(d);
+        java.util.Collection<CsvRows.Row> main = chance.pipelines();
+        long beat = main.stream().filter(chance::beats).count();
+        String metric = Names.metric(main.iterator().next().s("metric"));
         if (beat == main.size()) {
             return "every pipeline beat chance (permutation p \u2264 " + level + " on " + metric + ", unadjusted)";
         }

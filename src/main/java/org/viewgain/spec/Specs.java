@@ -150,6 +150,15 @@ public final class Specs {
 
     /** Nested cross-validation settings. */
     public record Validation(Scheme scheme, int folds, int repeats, int innerFolds, String tuneBy) {
+        /** {@link #tuneBy} as the tables and metric maps spell it ({@code balanced_accuracy}). */
+        public String tuneByColumn() {
+            return Specs.column(tuneBy);
+        }
+    }
+
+    /** A metric as written in a spec ({@code balanced-accuracy}) as the tables spell it ({@code balanced_accuracy}). */
+    public static String column(String specMetric) {
+        return specMetric.replace('-', '_');
     }
 
     /** How training subjects get the imputed target features. */
@@ -187,6 +196,11 @@ public final class Specs {
                                String adjust, double rope, int bootstrap, double confidence) {
         public Significance {
             compare = List.copyOf(compare);
+        }
+
+        /** {@link #metric} as the tables and metric maps spell it ({@code balanced_accuracy}). */
+        public String metricColumn() {
+            return Specs.column(metric);
         }
     }
 }

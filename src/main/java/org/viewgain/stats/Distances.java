@@ -8,6 +8,11 @@ public final class Distances {
     private Distances() {
     }
 
+    /** The squared Euclidean distance of two rows of equal length (four partial sums, in a fixed order). */
+    public static double squared(double[] a, double[] b) {
+        return squares(a, b, 0, a.length);
+    }
+
     /** Sum of squared differences over columns [c0, c1), with four partial sums (in a fixed order). */
     private static double squares(double[] a, double[] b, int c0, int c1) {
         double s0 = 0;

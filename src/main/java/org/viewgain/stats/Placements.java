@@ -100,7 +100,8 @@ final class Placements {
         return sum / ((double) counts.length * others * others);
     }
 
-    private static int countBelow(double[] sorted, double x) {
+    /** How many of the sorted values are strictly below {@code x} (binary search). */
+    static int countBelow(double[] sorted, double x) {
         int lo = 0;
         int hi = sorted.length;
         while (lo < hi) {

@@ -61,22 +61,8 @@ public final class RankSum {
 
     /** The mid-rank (1-based) of v in the sorted values. */
     private static double midRank(double[] sorted, double v) {
-        int lo = lowerBound(sorted, v);
-        int hi = lowerBound(sorted, Math.nextUp(v));
+        int lo = Placements.countBelow(sorted, v);
+        int hi = Placements.countBelow(sorted, Math.nextUp(v));
         return (lo + 1 + hi) / 2.0;
-    }
-
-    private static int lowerBound(double[] sorted, double v) {
-        int lo = 0;
-        int hi = sorted.length;
-        while (lo < hi) {
-            int mid = (lo + hi) >>> 1;
-            if (sorted[mid] < v) {
-                lo = mid + 1;
-            } else {
-                hi = mid;
-            }
-        }
-        return lo;
     }
 }

@@ -125,7 +125,7 @@ class KernelSvmTest {
     void givenBreastCancer_whenSolvedTightly_thenObjectiveAndDecisionsEqualLibsvms() {
         double[][] x = CANCER.rows().x();
         int[] s = signs(CANCER.y(), 1);
-        double gamma = SmileSvm.gamma("scale", x);
+        double gamma = RbfKernel.gamma("scale", x);
         // eps 1e-6 on both sides: what remains is LIBSVM's single-precision kernel cache (about 1e-7 relative)
         assertAgreesWithLibsvm(x, s, 1.0, gamma, 1e-6, 1e-6, 1e-4);
         assertAgreesWithLibsvm(x, s, 10.0, 0.01, 1e-6, 1e-6, 1e-4);
@@ -135,7 +135,7 @@ class KernelSvmTest {
     void givenBreastCancer_whenSolvedAtTheDefaultTolerance_thenDecisionsAgreeToTheTolerance() {
         double[][] x = CANCER.rows().x();
         // LIBSVM's default eps 1e-3: both stop near the optimum, each at its own point; every class agrees
-        assertAgreesWithLibsvm(x, signs(CANCER.y(), 1), 1.0, SmileSvm.gamma("scale", x), 1e-3, 1e-3, 2e-2);
+        assertAgreesWithLibsvm(x, signs(CANCER.y(), 1), 1.0, RbfKernel.gamma("scale", x), 1e-3, 1e-3, 2e-2);
     }
 
     @Test

@@ -46,7 +46,7 @@ class SmileSvmTest {
     void givenScaleSetting_whenResolvingGamma_thenOneOverFeaturesTimesVariance() {
         // values 0, 2, 4, 6 over p = 2 columns: mean 3, population variance 5, so gamma = 1 / (2 * 5) (by hand).
         double[][] x = {{0, 2}, {4, 6}};
-        assertEquals(0.1, SmileSvm.gamma("scale", x), 1e-15);
-        assertEquals(0.5, SmileSvm.gamma(0.5, x), 0.0);
+        assertEquals(0.1, RbfKernel.gamma("scale", x), 1e-15);
+        assertEquals(0.5, RbfKernel.gamma(0.5, x), 0.0);
     }
 }

@@ -22,7 +22,12 @@ final class Recording implements Methods {
     record Fit(String kind, FitContext ctx, List<String> ids, int[] labels) {
     }
 
+    /** One call that fitted a classifier's grid points together: where (the first point's context), how many. */
+    record Grid(FitContext ctx, int points) {
+    }
+
     final ConcurrentLinkedQueue<Fit> fits = new ConcurrentLinkedQueue<>();
+    final ConcurrentLinkedQueue<Grid> grids = new ConcurrentLinkedQueue<>();
     private final Methods real = Methods.standard();
 
     @Override
@@ -82,6 +87,15 @@ final class Recording implements Methods {
             @Override
             public String scoreKind() {
                 return d.scoreKind();
+            }
+
+            @Override
+            public List<Model> fitGrid(List<FitContext> contexts, Rows x, int[] y, int classes, List<Params> grid) {
+                for (FitContext c : contexts) {
+                    fits.add(new Fit("classifier", c, x.ids(), y.clone()));
+                }
+                grids.add(new Grid(contexts.get(0), grid.size()));
+                return d.fitGrid(contexts, x, y, classes, grid);
             }
 
             @Override
