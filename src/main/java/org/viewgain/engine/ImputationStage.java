@@ -105,7 +105,8 @@ final class ImputationStage {
                     int[] fitSet = task.trainPositions();
                     FitContext ctx = level.at(level.crossFitRole(), task.inner(),
                             level.seed(runSeed, task.inner(), imp.name(), p.toString()));
-                    ViewImputer.Fitted fitted = imp.method().fit(ctx, sourceRows(fitSet), targetRows(fitSet), p);
+                    ViewImputer.Fitted fitted = imp.method().fit(ctx, sourceRows(fitSet), targetRows(fitSet), p,
+                            d.sourceDistances());
                     double[][] got = fitted.impute(ctx, sourceRows(predSet));
                     for (int t = 0; t < predSet.length; t++) {
                         int i = predSet[t];
@@ -138,7 +139,8 @@ final class ImputationStage {
         int[] withTarget = last.trainPositions();
         FitContext ctx = level.at(level.finalRole(), FitContext.WHOLE,
                 level.seed(runSeed, "final", imp.name(), chosen.toString()));
-        ViewImputer.Fitted fitted = imp.method().fit(ctx, sourceRows(withTarget), targetRows(withTarget), chosen);
+        ViewImputer.Fitted fitted = imp.method().fit(ctx, sourceRows(withTarget), targetRows(withTarget), chosen,
+                d.sourceDistances());
         int[] toImpute = last.imputePositions();
         double[][] got = fitted.impute(ctx, sourceRows(toImpute));
         double[][] exact = new double[d.n()][];

@@ -98,6 +98,31 @@ public final class StudyData {
         return subjects.size();
     }
 
+    private org.viewgain.imputation.SourceDistances distances;
+    private boolean distancesMade;
+
+    /**
+     * The run's table of label-free distances between source views (every subject against those with an observed
+     * target), made on first use and shared by every imputer fit; null without a target view or above its budget.
+     */
+    public synchronized org.viewgain.imputation.SourceDistances sourceDistances() {
+        if (!distancesMade) {
+            distancesMade = true;
+            if (target != null) {
+                List<String> all = new ArrayList<>(n());
+                List<String> trainable = new ArrayList<>();
+                for (int i = 0; i < n(); i++) {
+                    all.add(id(i));
+                    if (hasTarget(i)) {
+                        trainable.add(id(i));
+                    }
+                }
+                distances = org.viewgain.imputation.SourceDistances.of(all, trainable, source::stored);
+            }
+        }
+        return distances;
+    }
+
     public boolean hasTarget(int i) {
         return targetFeatures != null && targetFeatures[i] != null;
     }

@@ -33,6 +33,12 @@ public final class NearestNeighboursImputer implements ViewImputer {
 
     @Override
     public Fitted fit(FitContext ctx, Rows source, Rows target, Params params) {
+        return fit(ctx, source, target, params, null);
+    }
+
+    /** As {@link #fit}, reading the distances from {@code shared} when it holds them (label-free, computed once). */
+    @Override
+    public Fitted fit(FitContext ctx, Rows source, Rows target, Params params, SourceDistances shared) {
         Shapes.checkTraining(METHOD, source, target);
         int k = Math.min(params.getInt("k"), source.n());
         boolean byDistance = "distance".equals(params.getString("weights"));
@@ -43,11 +49,16 @@ public final class NearestNeighboursImputer implements ViewImputer {
         return (c, rows) -> {
             Shapes.checkWidth(METHOD, rows, p);
             double[][] out = new double[rows.n()][];
+            double[][] table = shared == null ? null : shared.squared(rows.ids(), source.ids());
             double[] d2 = new double[train.length];
             for (int r = 0; r < out.length; r++) {
-                double[] x = rows.x()[r];
-                for (int i = 0; i < train.length; i++) {
-                    d2[i] = squaredDistance(x, train[i]);
+                if (table != null) {
+                    d2 = table[r];
+                } else {
+                    double[] x = rows.x()[r];
+                    for (int i = 0; i < train.length; i++) {
+                        d2[i] = squaredDistance(x, train[i]);
+                    }
                 }
                 int[] nearest = Neighbours.smallest(d2, k);
                 out[r] = average(nearest, d2, y, q, byDistance);

@@ -40,6 +40,17 @@ public interface ViewImputer {
      */
     Fitted fit(FitContext ctx, Rows source, Rows target, Params params);
 
+    /**
+     * {@link #fit}, where the rows given (to this fit and to its {@link Fitted#impute}) are the subjects' source views
+     * as loaded and {@code shared} holds label-free distances between them, computed once per run. A method that
+     * needs such distances reads them from it (the same numbers it would compute); the default ignores it.
+     *
+     * @param shared the run's table of source distances, or null when there is none
+     */
+    default Fitted fit(FitContext ctx, Rows source, Rows target, Params params, SourceDistances shared) {
+        return fit(ctx, source, target, params);
+    }
+
     /** A fitted imputer. */
     interface Fitted {
         /**
