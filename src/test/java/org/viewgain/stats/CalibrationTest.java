@@ -28,6 +28,14 @@ class CalibrationTest {
     }
 
     @Test
+    void givenTheScikitLearnBrierExample_whenOf_thenItsValue() {
+        // scikit-learn documentation, brier_score_loss example (from memory; checked by hand):
+        // y = [0, 1, 1, 0], p = [0.1, 0.9, 0.8, 0.3] -> (0.01 + 0.01 + 0.04 + 0.09) / 4 = 0.0375
+        Calibration c = Calibration.of(new boolean[] {false, true, true, false}, new double[] {0.1, 0.9, 0.8, 0.3});
+        assertEquals(0.0375, c.brier(), 1e-15);
+    }
+
+    @Test
     void givenPerfectlyCalibratedGroups_whenOf_thenInterceptZeroAndSlopeOne() {
         // ten subjects at each p = k/10 (k = 1..9), exactly k of them positive: the score equations of both models,
         // sum(y - p) = 0 and sum((y - p) logit p) = 0, hold at intercept 0 and slope 1 (hand derivation, exact)
@@ -158,6 +166,19 @@ class CalibrationTest {
         }
         assertEquals(total, y.length);
         assertEquals(k, ref.keySet().stream().filter(q -> q.endsWith("_observed")).count());
+    }
+
+    @Test
+    void givenScoresInTwoBins_whenReliability_thenHandComputedMeansAndFractions() {
+        // by hand: bin [0.1, 0.2) holds 0.1 and 0.15 (one positive), bin [0.9, 1] holds 0.9 and 1.0 (both positive)
+        List<Calibration.ReliabilityBin> bins = Calibration.reliability(new boolean[] {false, true, true, true},
+                new double[] {0.1, 0.15, 0.9, 1.0}, 10);
+        assertEquals(2, bins.get(1).n());
+        assertEquals(0.125, bins.get(1).meanPredicted(), 1e-15);
+        assertEquals(0.5, bins.get(1).observedRate(), 0);
+        assertEquals(0.95, bins.get(9).meanPredicted(), 1e-15);
+        assertEquals(1.0, bins.get(9).observedRate(), 0);
+        assertEquals(4, bins.stream().mapToInt(Calibration.ReliabilityBin::n).sum());
     }
 
     @Test
