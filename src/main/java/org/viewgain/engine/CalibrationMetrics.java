@@ -68,40 +68,54 @@ final class CalibrationMetrics {
                 values[k][r] = v[k];
             }
         }
-        Specs.Significance sig = ex.spec().significance();
+        double[] estimate = new double[NAMES.size()];
+        for (int k = 0; k < estimate.length; k++) {
+            estimate[k] = Evaluation.mean(values[k]);
+        }
+        List<Interval> ci = bootstrap(ex, p, truth, score, positive);
         for (int k = 0; k < NAMES.size(); k++) {
-            double estimate = Evaluation.mean(values[k]);
-            Interval ci = Double.isNaN(estimate) || sig.bootstrap() == 0 ? Interval.undefined()
-                    : bootstrap(ex, p, NAMES.get(k), k, truth, score, positive);
-            out.add(new Evaluation.MetricRow(p, NAMES.get(k), estimate, Evaluation.sd(values[k]),
-                    ci.isDefined() ? ci.low() : Double.NaN, ci.isDefined() ? ci.high() : Double.NaN,
-                    ci.isDefined() ? "bootstrap" : "", reps, n));
+            Interval c = Double.isNaN(estimate[k]) ? Interval.undefined() : ci.get(k);
+            out.add(new Evaluation.MetricRow(p, NAMES.get(k), estimate[k], Evaluation.sd(values[k]),
+                    c.isDefined() ? c.low() : Double.NaN, c.isDefined() ? c.high() : Double.NaN,
+                    c.isDefined() ? "bootstrap" : "", reps, n));
         }
         return out;
     }
 
-    private static Interval bootstrap(Experiment ex, Pipeline p, String metric, int k, int[] truth, double[][] score,
-                                      int positive) {
+    /** The three intervals from one set of resamples; undefined for a value that any resample leaves undefined. */
+    private static List<Interval> bootstrap(Experiment ex, Pipeline p, int[] truth, double[][] score, int positive) {
         Specs.Significance sig = ex.spec().significance();
-        long seed = Seeds.derive(ex.spec().seed(), "bootstrap", p.label(), metric);
-        int[] undefined = new int[1];
-        Interval ci = Bootstrap.percentile(truth, units -> {
+        if (sig.bootstrap() == 0) {
+            return java.util.Collections.nCopies(NAMES.size(), Interval.undefined());
+        }
+        long seed = Seeds.derive(ex.spec().seed(), "bootstrap", p.label(), "calibration");
+        int[] undefined = new int[NAMES.size()];
+        List<Interval> ci = Bootstrap.percentiles(truth, units -> {
             boolean[] pos = new boolean[units.length];
             double[] prob = new double[units.length];
-            double sum = 0;
+            for (int i = 0; i < units.length; i++) {
+                pos[i] = truth[units[i]] == positive;
+            }
+            double[] sum = new double[NAMES.size()];
             for (double[] s : score) {
                 for (int i = 0; i < units.length; i++) {
-                    pos[i] = truth[units[i]] == positive;
                     prob[i] = s[units[i]];
                 }
-                sum += values(Calibration.of(pos, prob))[k];
+                double[] v = values(Calibration.of(pos, prob));
+                for (int k = 0; k < sum.length; k++) {
+                    sum[k] += v[k] / score.length;
+                }
             }
-            if (Double.isNaN(sum)) {
-                undefined[0]++;
+            for (int k = 0; k < sum.length; k++) {
+                undefined[k] += Double.isNaN(sum[k]) ? 1 : 0;
             }
-            return sum / score.length;
-        }, sig.bootstrap(), sig.confidence(), seed);
-        return undefined[0] > 0 ? Interval.undefined() : ci;
+            return sum;
+        }, NAMES.size(), sig.bootstrap(), sig.confidence(), seed);
+        List<Interval> out = new ArrayList<>();
+        for (int k = 0; k < NAMES.size(); k++) {
+            out.add(undefined[k] > 0 ? Interval.undefined() : ci.get(k));
+        }
+        return out;
     }
 
     private static double[] values(Calibration c) {

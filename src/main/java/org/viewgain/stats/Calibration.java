@@ -156,34 +156,8 @@ public record Calibration(int n, double brier, double intercept, double slope) {
 
     /** Maximum likelihood a of logit P(y) = a + x (x an offset), by Newton-Raphson; both classes present. */
     private static double offsetIntercept(double[] x, double[] y) {
-        double a = 0;
-        double ll = logLikelihood(x, y, a, 1);
-        for (int it = 0; it < MAX_ITERATIONS; it++) {
-            double score = 0;
-            double information = 0;
-            for (int i = 0; i < x.length; i++) {
-                double mu = sigmoid(a + x[i]);
-                score += y[i] - mu;
-                information += mu * (1 - mu);
-            }
-            if (!(information > 0)) {
-                return Double.NaN;
-            }
-            double step = score / information;
-            double next = a + step;
-            double nextLl = logLikelihood(x, y, next, 1);
-            for (int h = 0; h < 50 && nextLl < ll; h++) {
-                step /= 2;
-                next = a + step;
-                nextLl = logLikelihood(x, y, next, 1);
-            }
-            a = next;
-            ll = nextLl;
-            if (Math.abs(step) < TOLERANCE * (1 + Math.abs(a))) {
-                return a;
-            }
-        }
-        return Double.NaN;
+        double[] fit = newton(x, y, true);
+        return fit == null ? Double.NaN : fit[0];
     }
 
     /** Maximum likelihood b of logit P(y) = a + b x by IRLS; NaN when x is constant, separates, or no convergence. */
@@ -207,58 +181,75 @@ public record Calibration(int n, double brier, double intercept, double slope) {
         if (maxNeg <= minPos || maxPos <= minNeg) {
             return Double.NaN; // (quasi-)complete separation: the estimate is infinite
         }
+        double[] fit = newton(x, y, false);
+        return fit == null ? Double.NaN : fit[1];
+    }
+
+    /**
+     * Newton-Raphson for logit P(y) = a + b x from (0, 1), with b held at 1 when {@code offset}; a step that lowers
+     * the log-likelihood (beyond rounding) is halved. Returns {a, b}, or null without convergence.
+     */
+    private static double[] newton(double[] x, double[] y, boolean offset) {
         double a = 0;
         double b = 1;
-        double ll = logLikelihood(x, y, a, b);
+        double[] at = pass(x, y, a, b);
         for (int it = 0; it < MAX_ITERATIONS; it++) {
-            double g0 = 0;
-            double g1 = 0;
-            double h00 = 0;
-            double h01 = 0;
-            double h11 = 0;
-            for (int i = 0; i < x.length; i++) {
-                double mu = sigmoid(a + b * x[i]);
-                double w = mu * (1 - mu);
-                double r = y[i] - mu;
-                g0 += r;
-                g1 += r * x[i];
-                h00 += w;
-                h01 += w * x[i];
-                h11 += w * x[i] * x[i];
+            double da;
+            double db = 0;
+            if (offset) {
+                if (!(at[3] > 0)) {
+                    return null;
+                }
+                da = at[1] / at[3];
+            } else {
+                double det = at[3] * at[5] - at[4] * at[4];
+                if (!(det > 0)) {
+                    return null;
+                }
+                da = (at[5] * at[1] - at[4] * at[2]) / det;
+                db = (at[3] * at[2] - at[4] * at[1]) / det;
             }
-            double det = h00 * h11 - h01 * h01;
-            if (!(det > 0)) {
-                return Double.NaN;
-            }
-            double da = (h11 * g0 - h01 * g1) / det;
-            double db = (h00 * g1 - h01 * g0) / det;
-            double nextLl = logLikelihood(x, y, a + da, b + db);
-            for (int h = 0; h < 50 && nextLl < ll; h++) {
+            double[] next = pass(x, y, a + da, b + db);
+            for (int h = 0; h < 50 && next[0] < at[0] - 1e-12 * (1 + Math.abs(at[0])); h++) {
                 da /= 2;
                 db /= 2;
-                nextLl = logLikelihood(x, y, a + da, b + db);
+                next = pass(x, y, a + da, b + db);
             }
             a += da;
             b += db;
-            ll = nextLl;
+            at = next;
             if (Math.abs(da) < TOLERANCE * (1 + Math.abs(a)) && Math.abs(db) < TOLERANCE * (1 + Math.abs(b))) {
-                return b;
+                return new double[] {a, b};
             }
         }
-        return Double.NaN;
+        return null;
     }
 
-    private static double logLikelihood(double[] x, double[] y, double a, double b) {
+    /**
+     * One pass over the data at (a, b): {log-likelihood, score for a, score for b, information aa, ab, bb}, with one
+     * exponential and one logarithm per subject.
+     */
+    private static double[] pass(double[] x, double[] y, double a, double b) {
         double ll = 0;
+        double g0 = 0;
+        double g1 = 0;
+        double h00 = 0;
+        double h01 = 0;
+        double h11 = 0;
         for (int i = 0; i < x.length; i++) {
             double eta = a + b * x[i];
-            // y * eta - log(1 + e^eta), computed without overflow
-            ll += y[i] * eta - (eta > 0 ? eta + Math.log1p(Math.exp(-eta)) : Math.log1p(Math.exp(eta)));
+            double e = Math.exp(-Math.abs(eta));
+            double mu = eta >= 0 ? 1 / (1 + e) : e / (1 + e);
+            // y * eta - log(1 + e^eta), without overflow
+            ll += y[i] * eta - Math.max(eta, 0) - Math.log1p(e);
+            double r = y[i] - mu;
+            double w = mu * (1 - mu);
+            g0 += r;
+            g1 += r * x[i];
+            h00 += w;
+            h01 += w * x[i];
+            h11 += w * x[i] * x[i];
         }
-        return ll;
-    }
-
-    private static double sigmoid(double eta) {
-        return eta >= 0 ? 1 / (1 + Math.exp(-eta)) : Math.exp(eta) / (1 + Math.exp(eta));
+        return new double[] {ll, g0, g1, h00, h01, h11};
     }
 }

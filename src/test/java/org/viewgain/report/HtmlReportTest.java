@@ -86,6 +86,20 @@ class HtmlReportTest {
     }
 
     @Test
+    void givenMetricsCsvWithoutCalibrationRows_whenReported_thenDiagramStillDrawnAndTheTableNamedAbsent()
+            throws IOException {
+        // a run folder written before metrics.csv had calibration rows
+        Path r = fullRun();
+        Path metrics = r.resolve("metrics.csv");
+        Files.write(metrics, Files.readAllLines(metrics).stream()
+                .filter(l -> !l.contains(",brier,") && !l.contains(",calibration_")).toList());
+        Element block = Jsoup.parse(HtmlReport.render(r, false)).getElementById("chart-calibration");
+        assertEquals(1, block.select("img[src^=data:image/png;base64,]").size());
+        assertTrue(block.select("table.calibration").isEmpty());
+        assertTrue(block.text().contains("no calibration rows"), block.text());
+    }
+
+    @Test
     void givenComparisons_whenReported_thenEveryAnswerNumberEqualsItsCsvCell() throws IOException {
         Path r = fullRun();
         Document doc = Jsoup.parse(HtmlReport.render(r, false));
