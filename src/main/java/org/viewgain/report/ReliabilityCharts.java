@@ -42,10 +42,11 @@ final class ReliabilityCharts {
         List<String> notProb = new ArrayList<>();
         pooled.forEach((c, pipes) -> {
             // predictions.csv says what the scores are; runs written before it did are judged by the scores' range
-            boolean all = d.predictions.has("score_kind")
-                    ? d.predictions.rows().stream().filter(r -> r.s("classifier").equals(c))
-                            .allMatch(r -> r.s("score_kind").equals("probability"))
-                    : pipes.values().stream().allMatch(p -> Curves.probabilities(p.scores()));
+            // (and a score outside [0, 1] is no probability, whatever the table says)
+            boolean all = (!d.predictions.has("score_kind")
+                    || d.predictions.rows().stream().filter(r -> r.s("classifier").equals(c))
+                            .allMatch(r -> r.s("score_kind").equals("probability")))
+                    && pipes.values().stream().allMatch(p -> Curves.probabilities(p.scores()));
             if (!all) {
                 double lo = pipes.values().stream().flatMap(p -> p.score.stream()).mapToDouble(x -> x).min()
                         .orElse(Double.NaN);
