@@ -4,6 +4,7 @@
 # Inputs are the open data sets in ../reference/ (sources in ../reference/README.md). Outputs:
 #   wdbc-probabilities.csv   held-out probabilities of a deliberately weak, over-regularised logistic model on WDBC
 #   reference-values.csv     case,quantity,value: Brier score, calibration intercept and slope, reliability bins
+#                            (cases: asah, wdbc, and clipped: a 10-row table with p of exactly 0 and 1 in both groups)
 import numpy as np
 import pandas as pd
 import sklearn
@@ -42,6 +43,13 @@ def wdbc_case():
     return y[~train], p
 
 
+def clipped_case():
+    """A small table with probabilities of exactly 0 and 1 on both groups, so that clipping at EPS matters."""
+    y = np.array([1, 0, 1, 0, 1, 0, 1, 0, 1, 0])
+    p = np.array([1.0, 1.0, 0.9, 0.6, 0.7, 0.3, 0.2, 0.4, 0.0, 0.0])
+    return y, p
+
+
 def reference(case, y, p, rows):
     rows.append((case, "n", len(y)))
     rows.append((case, "brier", float(brier_score_loss(y, p))))
@@ -68,6 +76,7 @@ def main():
     rows = []
     reference("asah", *asah_case(), rows)
     reference("wdbc", *wdbc_case(), rows)
+    reference("clipped", *clipped_case(), rows)
     with open("reference-values.csv", "w") as f:
         f.write(f"# scikit-learn {sklearn.__version__}, statsmodels {statsmodels.__version__}, "
                 f"numpy {np.__version__}; written by generate.py\n")

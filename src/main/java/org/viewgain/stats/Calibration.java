@@ -16,7 +16,8 @@ import java.util.List;
  * <p>Before the logit, {@code p} is clipped to {@code [EPSILON, 1 - EPSILON]} so that probabilities of exactly 0 or
  * 1 (a forest whose trees all agree) have a finite logit of about -13.8 or 13.8. The Brier score uses the unclipped
  * {@code p}. Both logistic models are fitted by maximum likelihood with Newton-Raphson (the two-parameter model is
- * IRLS), halving a step that lowers the likelihood, until the largest change of a coefficient is below
+ * IRLS) from intercept 0 and slope 1, halving a step that lowers the log-likelihood by more than rounding
+ * (1e-12 relative), until the change of each coefficient is below
  * {@code 1e-10 * (1 + |coefficient|)}, at most 100 iterations.
  *
  * <p>Undefined values are NaN, never an exception and never a substitute number:

@@ -140,6 +140,18 @@ class CalibrationTest {
     }
 
     @Test
+    void givenProbabilitiesOfExactlyZeroAndOneInBothGroups_whenOf_thenClippedFitMatchesStatsmodels() {
+        // generate.py's "clipped" table: p = 0 and p = 1 on a positive and a negative each, so the logit is taken at
+        // the clipped 1e-6 and 1 - 1e-6 (about -13.8 and 13.8); statsmodels 0.15.0 / scikit-learn 1.9.1 on the same
+        // clipped logits give a slope near 0 (0.0065): the confident mistakes dominate
+        boolean[] y = {true, false, true, false, true, false, true, false, true, false};
+        double[] p = {1.0, 1.0, 0.9, 0.6, 0.7, 0.3, 0.2, 0.4, 0.0, 0.0};
+        checkAgainstReference("clipped", y, p);
+        // the Brier score uses p unclipped (by hand): (0 + 1 + 0.01 + 0.36 + 0.09 + 0.09 + 0.64 + 0.16 + 1 + 0) / 10
+        assertEquals(0.335, Calibration.of(y, p).brier(), 1e-15);
+    }
+
+    @Test
     void givenReliabilityBins_whenComparedWithScikitLearnCalibrationCurve_thenNonEmptyBinsAgree() {
         List<CSVRecord> rows = resourceCsv("wdbc-probabilities.csv");
         boolean[] y = new boolean[rows.size()];
