@@ -8,11 +8,15 @@ import org.viewgain.stats.ClassificationMetrics;
 
 /**
  * Metrics from out-of-fold predictions: per pipeline and repeat on the pooled predictions of that repeat, then the
- * mean and standard deviation over repeats; and per outer fold (for paired fold-wise tests).
+ * mean and standard deviation over repeats (with calibration, {@link CalibrationMetrics}); and per outer fold (for
+ * paired fold-wise tests; without calibration, whose slope is rarely defined in a fold of a few subjects).
  */
 public final class Evaluation {
     private Evaluation() {
     }
+
+    /** Names of the calibration rows of {@link #metrics}: Brier score, calibration intercept and slope. */
+    public static final List<String> CALIBRATION = CalibrationMetrics.NAMES;
 
     /** A metric of one pipeline: mean over repeats, its spread, and n subjects per repeat. */
     public record MetricRow(Pipeline pipeline, String metric, double estimate, double sdOverRepeats, double ciLow,
@@ -23,7 +27,11 @@ public final class Evaluation {
     public record FoldMetricRow(Pipeline pipeline, int repeat, int fold, String metric, double value, int n) {
     }
 
-    /** Metrics per pipeline, averaged over repeats, in pipeline order then metric order. */
+    /**
+     * Metrics per pipeline, averaged over repeats, in pipeline order then metric order: those of
+     * {@link ClassificationMetrics#NAMES}, then the calibration rows ({@link #CALIBRATION}; blank unless the scores are
+     * probabilities of one of two groups).
+     */
     public static List<MetricRow> metrics(RunResults res) {
         List<MetricRow> out = new ArrayList<>();
         Experiment ex = res.experiment();
@@ -47,6 +55,7 @@ public final class Evaluation {
                 MetricIntervals.Ci c = ci.get(m);
                 out.add(new MetricRow(p, m, mean(v), sd(v), c.low(), c.high(), c.method(), v.length, n));
             }
+            out.addAll(CalibrationMetrics.rows(ex, p, predictions, n));
         }
         return out;
     }

@@ -11,7 +11,7 @@ final class ChartsSection {
         b.append(sub("chart-roc", "ROC curves per feature set", PredictionCharts.roc(d)));
         b.append(sub("chart-folds", "Per fold: source against source+imputed", FoldLines.html(d)));
         b.append(sub("chart-null", "Permutation null distributions", NullHistograms.html(d)));
-        b.append(sub("chart-calibration", "Calibration", PredictionCharts.calibration(d)));
+        b.append(sub("chart-calibration", "Calibration", ReliabilityCharts.html(d)));
         b.append(sub("chart-imputation", "Imputation error", ImputationCharts.summary(d)
                 + ImputationCharts.heatmaps(d)));
         b.append(sub("chart-importance", "Top features and their view", ImportanceChart.html(d)));

@@ -5,8 +5,8 @@ import java.util.Comparator;
 
 /**
  * Curves computed from pooled out-of-fold scores: the empirical ROC curve (tied scores move together, so its area
- * equals the Mann-Whitney AUC with ties counted one half; Hanley &amp; McNeil 1982), and the reliability curve with
- * the Brier score (Brier 1950) for scores that are probabilities.
+ * equals the Mann-Whitney AUC with ties counted one half; Hanley &amp; McNeil 1982); the reliability diagram's bins
+ * and the Brier score are {@link org.viewgain.stats.Calibration}'s.
  */
 final class Curves {
     private Curves() {
@@ -64,42 +64,5 @@ final class Curves {
             }
         }
         return score.length > 0;
-    }
-
-    /** Mean squared difference between the score and the 0/1 outcome. */
-    static double brier(double[] score, boolean[] positive) {
-        double s = 0;
-        for (int i = 0; i < score.length; i++) {
-            double e = score[i] - (positive[i] ? 1 : 0);
-            s += e * e;
-        }
-        return s / score.length;
-    }
-
-    /**
-     * Reliability curve over {@code bins} equal-width bins of [0, 1]: {mean score, fraction positive, count} for each
-     * non-empty bin (a score of exactly 1 falls in the last bin).
-     */
-    static double[][] reliability(double[] score, boolean[] positive, int bins) {
-        double[] sum = new double[bins];
-        double[] hits = new double[bins];
-        double[] count = new double[bins];
-        for (int i = 0; i < score.length; i++) {
-            int b = Math.min(bins - 1, (int) Math.floor(score[i] * bins));
-            sum[b] += score[i];
-            hits[b] += positive[i] ? 1 : 0;
-            count[b]++;
-        }
-        int used = 0;
-        double[][] out = new double[3][bins];
-        for (int b = 0; b < bins; b++) {
-            if (count[b] > 0) {
-                out[0][used] = sum[b] / count[b];
-                out[1][used] = hits[b] / count[b];
-                out[2][used] = count[b];
-                used++;
-            }
-        }
-        return new double[][] {Arrays.copyOf(out[0], used), Arrays.copyOf(out[1], used), Arrays.copyOf(out[2], used)};
     }
 }

@@ -1,6 +1,5 @@
 package org.viewgain.report;
 
-import java.awt.geom.Ellipse2D;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -13,7 +12,7 @@ import org.jfree.chart.renderer.xy.XYLineAndShapeRenderer;
 import org.jfree.data.xy.XYSeries;
 import org.jfree.data.xy.XYSeriesCollection;
 
-/** ROC curves per feature set and reliability curves with Brier scores, from the pooled rows of predictions.csv. */
+/** ROC curves per feature set from the pooled rows of predictions.csv (reliability: {@link ReliabilityCharts}). */
 final class PredictionCharts {
     private PredictionCharts() {
     }
@@ -106,84 +105,5 @@ final class PredictionCharts {
         NumberAxis a = new NumberAxis(label);
         a.setRange(0, 1);
         return a;
-    }
-
-    static String calibration(ReportData d) {
-        if (d.predictions == null) {
-            return Html.notComputed("calibration curves", "predictions.csv");
-        }
-        Map<String, Map<String, Pooled>> pooled = pool(d);
-        StringBuilder b = new StringBuilder();
-        List<List<String>> brier = new ArrayList<>();
-        List<String> notProb = new ArrayList<>();
-        StringBuilder charts = new StringBuilder("<div class=\"grid\">");
-        pooled.forEach((c, pipes) -> {
-            // predictions.csv says what the scores are; runs written before it did are judged by the scores' range
-            boolean all = d.predictions.has("score_kind")
-                    ? d.predictions.rows().stream().filter(r -> r.s("classifier").equals(c))
-                            .allMatch(r -> r.s("score_kind").equals("probability"))
-                    : pipes.values().stream().allMatch(p -> Curves.probabilities(p.scores()));
-            if (!all) {
-                double lo = pipes.values().stream().flatMap(p -> p.score.stream()).mapToDouble(x -> x).min()
-                        .orElse(Double.NaN);
-                double hi = pipes.values().stream().flatMap(p -> p.score.stream()).mapToDouble(x -> x).max()
-                        .orElse(Double.NaN);
-                notProb.add(String.format(Locale.ROOT, "%s (scores from %.3g to %.3g)", c, lo, hi));
-                return;
-            }
-            for (Map.Entry<String, Pooled> e : pipes.entrySet()) {
-                double v = Curves.brier(e.getValue().scores(), e.getValue().positives());
-                brier.add(List.of(Html.esc(e.getValue().label + " \u00b7 " + c), Html.esc(Html.f3(v)),
-                        String.valueOf(e.getValue().score.size())));
-            }
-            charts.append(Charts.figure(() -> reliabilityChart(pipes), 480, 420, "Reliability of " + c
-                    + ": mean predicted probability of " + d.positive() + " against the observed fraction, in ten "
-                    + "equal-width bins of pooled out-of-fold scores; the diagonal is perfect calibration.",
-                    d.redact));
-        });
-        if (!brier.isEmpty()) {
-            b.append(charts).append("</div>\n");
-            b.append(Html.table("brier", List.of("pipeline", "Brier score", "pooled predictions"), brier));
-            b.append("<p class=\"small\">Brier score: mean squared difference between the predicted probability "
-                    + "and the outcome (0 is perfect; always predicting the prevalence scores p(1 \u2212 p)).</p>\n");
-        }
-        if (!notProb.isEmpty()) {
-            b.append("<p class=\"absent\">No calibration curve or Brier score for ")
-                    .append(Html.esc(String.join("; ", notProb)))
-                    .append(": their scores are not probabilities in [0, 1] (e.g. distances to a separating "
-                            + "hyperplane), so calibration is not defined for them.</p>\n");
-        }
-        if (pooled.isEmpty()) {
-            b.append("<p class=\"absent\">No classifier in this run produced scores, so calibration cannot be "
-                    + "shown.</p>\n");
-        }
-        return b.toString();
-    }
-
-    private static JFreeChart reliabilityChart(Map<String, Pooled> pipes) {
-        XYSeriesCollection data = new XYSeriesCollection();
-        for (Pooled p : pipes.values()) {
-            double[][] rel = Curves.reliability(p.scores(), p.positives(), 10);
-            XYSeries s = new XYSeries(p.label, false, true);
-            for (int i = 0; i < rel[0].length; i++) {
-                s.add(rel[0][i], rel[1][i]);
-            }
-            data.addSeries(s);
-        }
-        XYSeries diagonal = new XYSeries("perfect calibration", false, true);
-        diagonal.add(0, 0);
-        diagonal.add(1, 1);
-        data.addSeries(diagonal);
-        XYLineAndShapeRenderer r = new XYLineAndShapeRenderer(true, true);
-        for (int i = 0; i < pipes.size(); i++) {
-            r.setSeriesPaint(i, Charts.color(i));
-            r.setSeriesStroke(i, Charts.line(i, 1.8f));
-            r.setSeriesShape(i, new Ellipse2D.Double(-3, -3, 6, 6));
-        }
-        r.setSeriesPaint(pipes.size(), Charts.CHANCE);
-        r.setSeriesStroke(pipes.size(), Charts.dashed(1.2f));
-        r.setSeriesShapesVisible(pipes.size(), false);
-        XYPlot plot = new XYPlot(data, unit("mean predicted probability"), unit("observed fraction"), r);
-        return new JFreeChart(null, Charts.LABEL, plot, true);
     }
 }

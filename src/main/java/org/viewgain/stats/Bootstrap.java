@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.SplittableRandom;
+import java.util.function.Function;
 import java.util.function.ToDoubleFunction;
 
 /**
@@ -29,14 +30,27 @@ public final class Bootstrap {
      */
     public static Interval percentile(int[] stratumOfUnit, ToDoubleFunction<int[]> statistic, int replicates,
             double confidence, long seed) {
+        return percentiles(stratumOfUnit, units -> new double[] {statistic.applyAsDouble(units)}, 1, replicates,
+                confidence, seed).get(0);
+    }
+
+    /**
+     * Percentile intervals of several statistics of the same resamples (drawn as {@link #percentile} draws them, so
+     * a single statistic gets the same interval from either): one interval per component of the statistic's value,
+     * each leaving out the replicates where that component is NaN, undefined when none is finite.
+     *
+     * @param components the length of every value the statistic returns
+     */
+    public static List<Interval> percentiles(int[] stratumOfUnit, Function<int[], double[]> statistic, int components,
+            int replicates, double confidence, long seed) {
         Normal.checkConfidence(confidence);
         if (replicates < 1) {
             throw new IllegalArgumentException("replicates must be at least 1, got " + replicates);
         }
         int[][] strata = strata(stratumOfUnit);
         SplittableRandom random = new SplittableRandom(seed);
-        double[] values = new double[replicates];
-        int finite = 0;
+        double[][] values = new double[components][replicates];
+        int[] finite = new int[components];
         int[] sample = new int[stratumOfUnit.length];
         for (int r = 0; r < replicates; r++) {
             int at = 0;
@@ -45,18 +59,25 @@ public final class Bootstrap {
                     sample[at++] = members[random.nextInt(members.length)];
                 }
             }
-            double v = statistic.applyAsDouble(sample.clone());
-            if (!Double.isNaN(v)) {
-                values[finite++] = v;
+            double[] v = statistic.apply(sample.clone());
+            for (int c = 0; c < components; c++) {
+                if (!Double.isNaN(v[c])) {
+                    values[c][finite[c]++] = v[c];
+                }
             }
         }
-        if (finite == 0) {
-            return Interval.undefined();
-        }
-        double[] sorted = Arrays.copyOf(values, finite);
-        Arrays.sort(sorted);
+        List<Interval> out = new ArrayList<>(components);
         double tail = (1 - confidence) / 2;
-        return new Interval(quantile(sorted, tail), quantile(sorted, 1 - tail));
+        for (int c = 0; c < components; c++) {
+            if (finite[c] == 0) {
+                out.add(Interval.undefined());
+                continue;
+            }
+            double[] sorted = Arrays.copyOf(values[c], finite[c]);
+            Arrays.sort(sorted);
+            out.add(new Interval(quantile(sorted, tail), quantile(sorted, 1 - tail)));
+        }
+        return out;
     }
 
     /** The rows of the given units, concatenated in unit order (a unit drawn twice contributes its rows twice). */

@@ -22,6 +22,15 @@ final class PairedRuns {
 
     /** An experiment of n subjects with knn classifiers {@code c1..c<classifiers>} on source; nothing is fitted. */
     static Experiment experiment(Path dir, int n, int classifiers, int folds, int repeats, String significance) {
+        return experiment(dir, n, java.util.Collections.nCopies(classifiers, "knn, fixed: { k: 3 }"), folds, repeats,
+                significance);
+    }
+
+    /**
+     * The same with classifier {@code c<k>} of the k-th method and its settings, e.g. {@code svm-linear} or
+     * {@code knn, fixed: { k: 3 }}.
+     */
+    static Experiment experiment(Path dir, int n, List<String> methods, int folds, int repeats, String significance) {
         try {
             Files.createDirectories(dir);
             StringBuilder subjects = new StringBuilder("subject,group\n");
@@ -34,8 +43,8 @@ final class PairedRuns {
             Files.writeString(dir.resolve("subjects.csv"), subjects);
             Files.writeString(dir.resolve("source.csv"), source);
             StringBuilder cl = new StringBuilder("classifiers:\n");
-            for (int c = 1; c <= classifiers; c++) {
-                cl.append("  - { name: c").append(c).append(", method: knn, fixed: { k: 3 } }\n");
+            for (int c = 1; c <= methods.size(); c++) {
+                cl.append("  - { name: c").append(c).append(", method: ").append(methods.get(c - 1)).append(" }\n");
             }
             String text = """
                     experiment: paired

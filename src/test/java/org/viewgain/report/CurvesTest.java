@@ -9,7 +9,7 @@ import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
 import org.viewgain.stats.Auc;
 
-/** ROC, reliability and Brier score against published worked examples and the project's own AUC. */
+/** ROC curves against published worked examples and the project's own AUC. */
 class CurvesTest {
     @Test
     void givenTheFourPointExample_whenRocComputed_thenPointsAndAreaMatchThePublishedOnes() {
@@ -33,24 +33,6 @@ class CurvesTest {
             s[i] = Math.round(4 * (rng.nextDouble() + (y[i] ? 0.3 : 0))) / 4.0;
         }
         assertEquals(Auc.of(s, y), Curves.area(Curves.roc(s, y)), 1e-12);
-    }
-
-    @Test
-    void givenTheBrierExample_whenScored_thenPublishedValue() {
-        // scikit-learn documentation, brier_score_loss example (from memory; checked by hand):
-        // y = [0, 1, 1, 0], p = [0.1, 0.9, 0.8, 0.3] -> (0.01 + 0.01 + 0.04 + 0.09) / 4 = 0.0375. Exact to 1e-12.
-        assertEquals(0.0375, Curves.brier(new double[] {0.1, 0.9, 0.8, 0.3},
-                new boolean[] {false, true, true, false}), 1e-12);
-    }
-
-    @Test
-    void givenScoresInTwoBins_whenReliabilityComputed_thenMeansAndFractionsPerBin() {
-        // Hand-computed: bin [0.1, 0.2) holds 0.1, 0.15 (one positive), bin [0.9, 1] holds 0.9 and 1.0 (both positive).
-        double[][] r = Curves.reliability(new double[] {0.1, 0.15, 0.9, 1.0},
-                new boolean[] {false, true, true, true}, 10);
-        assertArrayEquals(new double[] {0.125, 0.95}, r[0], 1e-12);
-        assertArrayEquals(new double[] {0.5, 1.0}, r[1], 1e-12);
-        assertArrayEquals(new double[] {2, 2}, r[2], 0);
     }
 
     @Test

@@ -63,6 +63,43 @@ class HtmlReportTest {
     }
 
     @Test
+    void givenForestAndSvm_whenReported_thenCalibrationTableEqualsMetricsCsvAndSvmIsNamedBlank() throws IOException {
+        Path r = fullRun();
+        Element block = Jsoup.parse(HtmlReport.render(r, false)).getElementById("chart-calibration");
+        // one reliability diagram: the forest's (the svm gives decision values)
+        assertEquals(1, block.select("img[src^=data:image/png;base64,]").size());
+        CsvRows metrics = CsvRows.readIfPresent(r, "metrics.csv");
+        int checked = 0;
+        for (String m : List.of("brier", "calibration_intercept", "calibration_slope")) {
+            List<String> csv = metrics.where(x -> x.s("metric").equals(m) && x.s("classifier").equals("forest"))
+                    .stream().map(x -> x.s("estimate")).toList();
+            List<String> shown = block.select("table.calibration span.num[data-col=" + m + ".estimate]").stream()
+                    .map(e -> e.attr("data-value")).toList();
+            assertEquals(csv, shown, m);
+            checked += shown.size();
+        }
+        assertEquals(3 * metrics.where(x -> x.s("metric").equals("brier") && x.s("classifier").equals("forest"))
+                .size(), checked);
+        assertTrue(block.select("table.calibration td").stream().noneMatch(td -> td.text().contains("svm")));
+        assertTrue(block.text().contains("Platt scaling") && block.text().contains("blank"), block.text());
+        assertTrue(block.text().contains("Van Calster et al. 2016"));
+    }
+
+    @Test
+    void givenMetricsCsvWithoutCalibrationRows_whenReported_thenDiagramStillDrawnAndTheTableNamedAbsent()
+            throws IOException {
+        // a run folder written before metrics.csv had calibration rows
+        Path r = fullRun();
+        Path metrics = r.resolve("metrics.csv");
+        Files.write(metrics, Files.readAllLines(metrics).stream()
+                .filter(l -> !l.contains(",brier,") && !l.contains(",calibration_")).toList());
+        Element block = Jsoup.parse(HtmlReport.render(r, false)).getElementById("chart-calibration");
+        assertEquals(1, block.select("img[src^=data:image/png;base64,]").size());
+        assertTrue(block.select("table.calibration").isEmpty());
+        assertTrue(block.text().contains("no calibration rows"), block.text());
+    }
+
+    @Test
     void givenComparisons_whenReported_thenEveryAnswerNumberEqualsItsCsvCell() throws IOException {
         Path r = fullRun();
         Document doc = Jsoup.parse(HtmlReport.render(r, false));

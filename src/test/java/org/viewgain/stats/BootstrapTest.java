@@ -15,6 +15,29 @@ import org.junit.jupiter.api.Test;
 
 class BootstrapTest {
     @Test
+    void givenSeveralStatistics_whenPercentiles_thenEachEqualsItsOwnPercentileOnTheSameResamples() {
+        List<CSVRecord> rows = ReferenceData.read("asah.csv");
+        double[] wfns = ReferenceData.column(rows, "wfns");
+        double[] s100b = ReferenceData.column(rows, "s100b");
+        boolean[] poor = ReferenceData.asahPoor(rows);
+        int[] strata = new int[poor.length];
+        for (int i = 0; i < poor.length; i++) {
+            strata[i] = poor[i] ? 1 : 0;
+        }
+        ToDoubleFunction<int[]> meanWfns = units -> Arrays.stream(units).mapToDouble(u -> wfns[u]).average()
+                .orElseThrow();
+        ToDoubleFunction<int[]> meanS100b = units -> Arrays.stream(units).mapToDouble(u -> s100b[u]).average()
+                .orElseThrow();
+        List<Interval> both = Bootstrap.percentiles(strata, units -> new double[] {meanWfns.applyAsDouble(units),
+            meanS100b.applyAsDouble(units), Double.NaN}, 3, 300, 0.9, 11);
+        // the same seed draws the same resamples, so each component equals the one-statistic interval exactly
+        assertEquals(Bootstrap.percentile(strata, meanWfns, 300, 0.9, 11), both.get(0));
+        assertEquals(Bootstrap.percentile(strata, meanS100b, 300, 0.9, 11), both.get(1));
+        assertNotEquals(both.get(0), both.get(1));
+        assertFalse(both.get(2).isDefined());
+    }
+
+    @Test
     void givenSameSeed_whenBootstrapped_thenIdentical_andOtherSeedDiffers() {
         List<CSVRecord> rows = ReferenceData.read("asah.csv");
         double[] wfns = ReferenceData.column(rows, "wfns");
