@@ -24,6 +24,14 @@ public final class Availability {
     private Availability() {
     }
 
+    /**
+     * Model fits the spec's availability curve adds to the run (0 without a curve): imputers and source+imputed
+     * pipelines re-fitted at every level and outer fold where the level does not keep every target.
+     */
+    public static long modelFits(Experiment ex) {
+        return new AvailabilityRun(ex).modelFits();
+    }
+
     /** The order in which the training block's subjects with an observed target enter the levels (positions). */
     static int[] order(Experiment ex, int repeat, int fold) {
         StudyData d = ex.data();
