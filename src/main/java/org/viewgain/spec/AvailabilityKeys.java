@@ -25,6 +25,9 @@ final class AvailabilityKeys {
         s.allowOnly(Set.of("fractions", "counts", "margin"));
         double margin = s.number("margin", AvailabilityCurve.DEFAULT_MARGIN, 0, 0.999);
         int before = s.problems.messages().size();
+        if (s.problems.wasMisspelled(s.key("fractions")) || s.problems.wasMisspelled(s.key("counts"))) {
+            return null; // the unknown key is reported with a "did you mean"
+        }
         if (s.has("fractions") == s.has("counts")) {
             s.problems.add(KEY, "give either fractions (e.g. fractions: [0.1, 0.25, 0.5, 1.0]) or counts (e.g. "
                     + "counts: [20, 40, 80]) of the training subjects with an observed target, not both");
