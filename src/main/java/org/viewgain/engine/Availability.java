@@ -92,6 +92,50 @@ public final class Availability {
                 ex.classifiers(), ex.pipelines(), ex.scaler(), ex.prep(), ex.duplicates());
     }
 
+    /** Fewest training subjects with a target an imputer fit can learn from. */
+    static final int MIN_PER_FIT = 1;
+
+    /**
+     * The fewest training subjects with a target among the imputer fits a level runs in one outer fold: the final fit,
+     * the cross-fits over the imputation folds, and for pipelines tuned with nested imputations, the same one level
+     * down in every classifier inner fold.
+     */
+    static int fewestInAFit(Experiment ex, int repeat, int fold, int[] keep) {
+        Experiment m = masked(ex, repeat, fold, keep);
+        int[] train = ex.plan().train(repeat, fold);
+        boolean crossFits = ex.imputers().stream().anyMatch(i -> ImputationTasks.runsCrossFits(ex, i));
+        int k = ex.spec().validation().innerFolds();
+        int fewest = fewest(m, train, crossFits ? ImputationFolds.of(m, train, Seeds.derive(ex.spec().seed(),
+                "imputation-folds", repeat, fold)) : null, k);
+        boolean nested = false;
+        for (Pipeline p : ex.pipelines()) {
+            int points = ex.classifier(p.classifier()).grid().size() * ex.prep().selectionPoints();
+            nested |= p.featureSet() == org.viewgain.spec.FeatureSet.SOURCE_IMPUTED && points > 1
+                    && ClassifierStage.nestedImputation(ex, p);
+        }
+        if (nested) {
+            int[] innerOf = InnerFolds.of(ex, repeat, fold);
+            for (int j = 0; j < k; j++) {
+                final int jj = j;
+                int[] fit = Arrays.stream(train).filter(i -> innerOf[i] != jj).toArray();
+                fewest = Math.min(fewest, fewest(m, fit, crossFits ? ImputationFolds.of(m, fit, Seeds.derive(
+                        ex.spec().seed(), "imputation-folds", repeat, fold, "nested", j)) : null, k));
+            }
+        }
+        return fewest;
+    }
+
+    private static int fewest(Experiment m, int[] train, int[] foldOf, int k) {
+        int all = (int) Arrays.stream(train).filter(m.data()::hasTarget).count();
+        int fewest = all;
+        for (int j = 0; j < k && foldOf != null; j++) {
+            final int jj = j;
+            fewest = Math.min(fewest, (int) Arrays.stream(train).filter(i -> m.data().hasTarget(i) && foldOf[i] != jj)
+                    .count());
+        }
+        return fewest;
+    }
+
     /**
      * Checks that every level is possible in every outer fold: a count no larger than the block's subjects with a
      * target, and at least twice the inner folds kept (as the imputers need in the run).
@@ -119,6 +163,14 @@ public final class Availability {
                         problems.add(key, curve.label(l) + " keeps " + keep + " of the " + available + " training "
                                 + "subjects with an observed target in repeat " + (r + 1) + ", outer fold " + (f + 1)
                                 + "; imputers need at least " + min + " (twice the inner folds)");
+                        return;
+                    }
+                    int fewest = fewestInAFit(ex, r, f, subset(curve, l, order(ex, r, f)));
+                    if (fewest < MIN_PER_FIT) {
+                        problems.add(key, curve.label(l) + " keeps " + keep + " training subjects with an observed "
+                                + "target in repeat " + (r + 1) + ", outer fold " + (f + 1) + ", and the imputers' "
+                                + "tuning and cross-fitting split them further: one fit would get " + fewest
+                                + ", and an imputer needs at least " + MIN_PER_FIT + "; use a larger level");
                         return;
                     }
                 }
