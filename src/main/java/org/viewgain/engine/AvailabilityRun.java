@@ -56,7 +56,7 @@ final class AvailabilityRun {
         int levels = curve == null ? 0 : curve.size();
         keep = new int[levels][slots.size()][];
         available = new int[slots.size()];
-        for (int s = 0; s < slots.size(); s++) {
+        for (int s = 0; s < slots.size() && curve != null; s++) {
             int[] order = Availability.order(ex, slots.get(s)[0], slots.get(s)[1]);
             available[s] = order.length;
             for (int l = 0; l < levels; l++) {

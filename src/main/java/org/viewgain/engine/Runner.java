@@ -113,11 +113,6 @@ public final class Runner {
                 + (long) ex.spec().significance().permutations() * ex.pipelines().size() + curve.keys(null).size();
     }
 
-    /** Model fits the spec's availability curve adds to the run (0 without one). */
-    public long availabilityFits() {
-        return curve.modelFits();
-    }
-
     /**
      * Journals every finished unit and skips units already in the journal (resume). Without a journal nothing is
      * written and every unit runs.

@@ -79,7 +79,7 @@ final class AvailabilityChart {
         return out;
     }
 
-    private static String findings(List<CsvRows.Row> rows, double margin) {
+    static String findings(List<CsvRows.Row> rows, double margin) {
         List<List<String>> table = new ArrayList<>();
         for (Finding f : find(rows, margin)) {
             List<String> cells = new ArrayList<>();
