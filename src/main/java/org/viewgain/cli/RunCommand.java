@@ -121,7 +121,9 @@ final class RunCommand implements Callable<Integer> {
         err.print(org.viewgain.report.MissingTargets.warning(ex));
         err.flush();
         if (!common.quiet) {
-            err.println("[viewgain] " + ex.pipelines().size() + " pipelines, " + ex.modelFits() + " model fits, "
+            long curveFits = org.viewgain.engine.Availability.modelFits(ex);
+            err.println("[viewgain] " + ex.pipelines().size() + " pipelines, " + ex.modelFits() + " model fits"
+                    + (curveFits > 0 ? " (+ " + curveFits + " for the availability curve)" : "") + ", "
                     + common.threads() + " thread(s)" + (shard == null ? "" : ", shard " + shard.label())
                     + (journal.size() > 0 ? ", " + journal.size() + " units already done" : "") + "; writing "
                     + folder.dir());

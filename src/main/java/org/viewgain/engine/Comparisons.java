@@ -63,6 +63,12 @@ public final class Comparisons {
         return adjust(rows, sig.adjust());
     }
 
+    /** The tests of one pair, unadjusted (the availability curve's gains: the same tests as the run's rows). */
+    static List<Row> unadjusted(RunResults res, Pipeline a, Pipeline b) {
+        return compare(res, new ComparisonPairs.Pair(a.featureSet().label() + " vs " + b.featureSet().label(), a, b),
+                res.experiment().spec().significance());
+    }
+
     private static List<Row> compare(RunResults res, ComparisonPairs.Pair pair, Specs.Significance sig) {
         Experiment ex = res.experiment();
         Set<Integer> common = new HashSet<>();

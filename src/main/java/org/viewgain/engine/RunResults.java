@@ -11,12 +11,23 @@ import org.viewgain.folds.FoldPlan;
  * @param firstRepeatImputed per imputer, the out-of-fold imputed base vectors of repeat 1 (rows shared with the
  *                           run's imputations, read only), for {@link Separation}; empty when the run did not compute
  *                           them (e.g. a merge of shards), in which case they are recomputed
+ * @param availability       the levels of the spec's availability curve, the full data last (empty without one)
  */
 public record RunResults(Experiment experiment, FoldPlan plan, List<Prediction> predictions,
                          List<Choice> choices, List<ImputationRow> imputation, List<EdgeErrors> edgeErrors,
                          List<PermutationResult> permutations, List<Importance.Fold> importance,
-                         Map<String, float[][]> firstRepeatImputed) {
+                         Map<String, float[][]> firstRepeatImputed, List<AvailabilityLevel> availability) {
+    /** Results without an availability curve. */
+    public RunResults(Experiment experiment, FoldPlan plan, List<Prediction> predictions, List<Choice> choices,
+                      List<ImputationRow> imputation, List<EdgeErrors> edgeErrors,
+                      List<PermutationResult> permutations, List<Importance.Fold> importance,
+                      Map<String, float[][]> firstRepeatImputed) {
+        this(experiment, plan, predictions, choices, imputation, edgeErrors, permutations, importance,
+                firstRepeatImputed, List.of());
+    }
+
     public RunResults {
+        availability = List.copyOf(availability);
         firstRepeatImputed = Map.copyOf(firstRepeatImputed);
         predictions = List.copyOf(predictions);
         choices = List.copyOf(choices);
@@ -29,7 +40,35 @@ public record RunResults(Experiment experiment, FoldPlan plan, List<Prediction> 
     /** The same results with the permutation tests added. */
     public RunResults withPermutations(List<PermutationResult> perms) {
         return new RunResults(experiment, plan, predictions, choices, imputation, edgeErrors, perms, importance,
-                firstRepeatImputed);
+                firstRepeatImputed, availability);
+    }
+
+    /** The same results with the levels of an availability curve. */
+    public RunResults withAvailability(List<AvailabilityLevel> levels) {
+        return new RunResults(experiment, plan, predictions, choices, imputation, edgeErrors, permutations,
+                importance, firstRepeatImputed, levels);
+    }
+
+    /**
+     * One level of the availability curve: the out-of-fold predictions of the {@code source+imputed} pipelines and
+     * the imputation quality rows when each outer training block kept only this level's subjects with a target.
+     *
+     * @param label       the level as the spec wrote it ({@code 0.25}, {@code 40}), or {@code all} for the full data
+     *                    appended after a list that does not end with fraction 1
+     * @param fraction    the spec's fraction (1 for the full data), NaN for a count
+     * @param count       the spec's count, -1 for a fraction or the full data
+     * @param full        true for the full-data level: the run's own results, nothing re-fitted
+     * @param targets     per outer fold slot (repeat-major), the training subjects with a target the level kept
+     * @param predictions the level's predictions of every {@code source+imputed} pipeline
+     * @param quality     the level's imputation quality rows (outer-test subjects with an observed target)
+     */
+    public record AvailabilityLevel(String label, double fraction, int count, boolean full, List<Integer> targets,
+                                    List<Prediction> predictions, List<ImputationRow> quality) {
+        public AvailabilityLevel {
+            targets = List.copyOf(targets);
+            predictions = List.copyOf(predictions);
+            quality = List.copyOf(quality);
+        }
     }
 
     /**

@@ -31,11 +31,13 @@ public final class Runner {
     private final Map<String, Object> done = new ConcurrentHashMap<>();
     private Journal journal;
     private UnitCodec codec;
+    private final AvailabilityRun curve;
 
     public Runner(Experiment ex, int threads, Progress progress) {
         this.ex = ex;
         this.threads = Math.max(1, threads);
         this.progress = progress;
+        this.curve = new AvailabilityRun(ex);
     }
 
     /** Label-free results of phase one, shared with the permutation test. */
@@ -108,7 +110,7 @@ public final class Runner {
             folds += ex.plan().folds(r);
         }
         return folds * ((anyImputed() ? ex.imputers().size() : 0) + ex.pipelines().size())
-                + (long) ex.spec().significance().permutations() * ex.pipelines().size();
+                + (long) ex.spec().significance().permutations() * ex.pipelines().size() + curve.keys(null).size();
     }
 
     /**
@@ -158,6 +160,7 @@ public final class Runner {
                 }
             }
         }
+        out.addAll(curve.keys(shard));
         if (shard != null) {
             for (int pi = 0; pi < pipelines; pi++) {
                 for (int k = 0; k < ex.spec().significance().permutations(); k++) {
@@ -183,7 +186,7 @@ public final class Runner {
         if (v == null && journal != null) {
             JsonNode rec = journal.unit(key);
             if (rec != null) {
-                v = switch (key.charAt(0)) {
+                v = switch (kind(key)) {
                     case 'i' -> codec.imputer(rec);
                     case 'c' -> codec.classifier(rec);
                     default -> UnitCodec.permutation(rec);
@@ -195,9 +198,14 @@ public final class Runner {
         return v;
     }
 
+    /** The kind of a unit: 'i' imputation, 'c' classifier, 'p' permutation (curve units are of the first two). */
+    private static char kind(String key) {
+        return AvailabilityRun.isCurveKey(key) ? key.charAt(1) : key.charAt(0);
+    }
+
     private void record(String key, Object value) {
         if (journal != null) {
-            journal.append(switch (key.charAt(0)) {
+            journal.append(switch (kind(key)) {
                 case 'i' -> codec.imputer(key, (UnitCodec.ImputerSummary) value);
                 case 'c' -> codec.classifier(key, (ClassifierStage.Output) value);
                 default -> codec.permutation(key, (Double) value);
@@ -235,7 +243,7 @@ public final class Runner {
                     counter.done();
                 } else if (key.charAt(0) == 'p') {
                     allSlots = true;
-                } else {
+                } else if (!AvailabilityRun.isCurveKey(key)) {
                     needed.add(Integer.parseInt(key.split("/")[1]));
                 }
             }
@@ -264,6 +272,8 @@ public final class Runner {
                 });
             }
             invokeAll(pool, tasks);
+            // the availability curve: its own units, level by level, on the same folds
+            curve.run(mine, state.innerOf, host(pool, counter));
             Permutations perm = new Permutations(ex, state, (p, k) -> (Double) known(UnitCodec.permutationKey(p, k)),
                     (p, k, v) -> record(UnitCodec.permutationKey(p, k), v), () -> impute(state,
                     allFolds(state), pool, null, counter, false));
@@ -299,7 +309,7 @@ public final class Runner {
                 invokeAll(pool, batch);
                 return null;
             }
-            RunResults res = collect(state);
+            RunResults res = collect(state).withAvailability(curve.collect(host(pool, counter)));
             // phase three: permutation test
             if (ex.spec().significance().permutations() > 0) {
                 String metric = ex.spec().significance().metricColumn();
@@ -361,7 +371,36 @@ public final class Runner {
         invokeAll(pool, tasks);
     }
 
+    private AvailabilityRun.Host host(ExecutorService pool, Counter counter) {
+        return new AvailabilityRun.Host() {
+            @Override
+            public Object known(String key) {
+                return Runner.this.known(key);
+            }
+
+            @Override
+            public void record(String key, Object value) {
+                Runner.this.record(key, value);
+            }
+
+            @Override
+            public void runAll(List<Callable<Void>> tasks) {
+                invokeAll(pool, tasks);
+            }
+
+            @Override
+            public void done() {
+                counter.done();
+            }
+        };
+    }
+
     private UnitCodec.ImputerSummary summary(int[] rf, int m, ImputedFold fi) {
+        return summary(ex, rf, m, fi);
+    }
+
+    /** What the journal keeps of one imputer in one outer fold ({@code rf}: repeat, fold). */
+    static UnitCodec.ImputerSummary summary(Experiment ex, int[] rf, int m, ImputedFold fi) {
         Resolved.Imputer imp = ex.imputers().get(m);
         List<RunResults.ImputationRow> quality = new ArrayList<>();
         for (ImputedFold.Quality q : fi.quality()) {

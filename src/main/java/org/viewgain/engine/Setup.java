@@ -54,6 +54,7 @@ public final class Setup {
         Experiment ex = new Experiment(spec, data, plan, imputers, classifiers, pipelines,
                 methods.scaler(spec.features().scale()), prep, duplicates);
         checkPlan(ex, problems);
+        Availability.check(ex, problems);
         problems.throwIfAny();
         if (prep.harmonizer() != null) {
             SiteChecks.check(ex, problems);

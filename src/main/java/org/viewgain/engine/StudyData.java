@@ -167,6 +167,18 @@ public final class StudyData {
         return out;
     }
 
+    /**
+     * The same cohort with the observed targets of the {@code hidden} positions treated as missing (views, features
+     * and names shared, not copied): what an availability-curve level's imputers and pipelines see.
+     */
+    StudyData withoutTargets(java.util.BitSet hidden) {
+        float[][] kept = targetFeatures == null ? null : targetFeatures.clone();
+        if (kept != null) {
+            hidden.stream().forEach(i -> kept[i] = null);
+        }
+        return new StudyData(subjects, y, source, target, sourceFeatures, kept, sourceNames, targetNames);
+    }
+
     /** Subject {@code i}'s source features as stored (shared; for checks of the storage, never written). */
     float[] storedSource(int i) {
         return sourceFeatures[i];

@@ -15,6 +15,10 @@ final class ChartsSection {
         b.append(sub("chart-imputation", "Imputation error", ImputationCharts.summary(d)
                 + ImputationCharts.heatmaps(d)));
         b.append(sub("chart-importance", "Top features and their view", ImportanceChart.html(d)));
+        String curve = AvailabilityChart.html(d);
+        if (!curve.isEmpty()) {
+            b.append(sub("chart-availability", "How many target scans are enough", curve));
+        }
         return b.append("</section>\n").toString();
     }
 

@@ -80,9 +80,27 @@ public final class CheckReport {
             b.append("  ").append(p.label()).append('\n');
         }
         b.append("model fits in this run: ").append(ex.modelFits()).append('\n');
+        b.append(availability(ex));
         b.append('\n').append(duplicates(ex, 20));
         b.append(costWarning(ex).replace("[viewgain] warning: ", ""));
         return b.toString();
+    }
+
+    /** What the spec's availability curve adds to the run, or nothing without a curve. */
+    static String availability(Experiment ex) {
+        org.viewgain.spec.AvailabilityCurve c = ex.spec().availability();
+        if (c == null) {
+            return "";
+        }
+        List<String> levels = new java.util.ArrayList<>();
+        for (int l = 0; l < c.size(); l++) {
+            levels.add(c.label(l));
+        }
+        long fits = org.viewgain.engine.Availability.modelFits(ex);
+        return "availability curve: " + (c.byFraction() ? "fractions " : "counts ") + String.join(", ", levels)
+                + " of the training subjects with a target; it adds " + fits + " model fits (" + String.format(
+                java.util.Locale.ROOT, "%.1f", fits / (double) ex.modelFits()) + " times the run's; a level that"
+                + " keeps every target reuses the run's fits)\n";
     }
 
     /** The steps of {@code features} in the order they are fitted. */

@@ -35,6 +35,7 @@ final class ReportData {
     final CsvRows confusion;
     final CsvRows cohortFlow;
     final CsvRows missingness;
+    final CsvRows availability;
     final Redactor redact;
 
     private ReportData(Path dir, boolean redactIds) throws IOException {
@@ -66,6 +67,7 @@ final class ReportData {
         confusion = CsvRows.readIfPresent(dir, "confusion.csv");
         cohortFlow = CsvRows.readIfPresent(dir, "cohort_flow.csv");
         missingness = CsvRows.readIfPresent(dir, "missingness.csv");
+        availability = CsvRows.readIfPresent(dir, AvailabilityTable.FILE);
         redact = new Redactor(redactIds, subjectIds());
     }
 

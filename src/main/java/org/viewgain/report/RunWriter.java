@@ -25,6 +25,9 @@ public final class RunWriter {
         if (!org.viewgain.engine.ComparisonPairs.of(res.experiment()).isEmpty()) {
             folder.write("comparisons.csv", SignificanceTables.comparisons(org.viewgain.engine.Comparisons.of(res)));
         }
+        if (!res.availability().isEmpty()) {
+            folder.write(AvailabilityTable.FILE, AvailabilityTable.of(res));
+        }
         if (!res.permutations().isEmpty()) {
             folder.write("permutations.csv", SignificanceTables.permutations(res.permutations()));
             folder.write("permutation_null.csv", SignificanceTables.permutationNull(res.permutations()));
