@@ -31,6 +31,8 @@ public final class Runner {
     private final Map<String, Object> done = new ConcurrentHashMap<>();
     private Journal journal;
     private UnitCodec codec;
+    private final Map<String, ImputationStage.Final> finalImputers = new ConcurrentHashMap<>();
+    private FinalPipelines finals;
 
     public Runner(Experiment ex, int threads, Progress progress) {
         this.ex = ex;
@@ -108,7 +110,8 @@ public final class Runner {
             folds += ex.plan().folds(r);
         }
         return folds * ((anyImputed() ? ex.imputers().size() : 0) + ex.pipelines().size())
-                + (long) ex.spec().significance().permutations() * ex.pipelines().size();
+                + (long) ex.spec().significance().permutations() * ex.pipelines().size()
+                + (ex.spec().finalPipelines() ? ex.pipelines().size() : 0);
     }
 
     /**
@@ -158,6 +161,13 @@ public final class Runner {
                 }
             }
         }
+        if (ex.spec().finalPipelines()) {
+            for (int pi = 0; pi < pipelines; pi++) {
+                if (shard == null || shard.owns(pi)) {
+                    out.add(UnitCodec.finalKey(pi));
+                }
+            }
+        }
         if (shard != null) {
             for (int pi = 0; pi < pipelines; pi++) {
                 for (int k = 0; k < ex.spec().significance().permutations(); k++) {
@@ -186,6 +196,7 @@ public final class Runner {
                 v = switch (key.charAt(0)) {
                     case 'i' -> codec.imputer(rec);
                     case 'c' -> codec.classifier(rec);
+                    case 'f' -> codec.finalUnit(rec);
                     default -> UnitCodec.permutation(rec);
                 };
                 done.put(key, v);
@@ -200,6 +211,7 @@ public final class Runner {
             journal.append(switch (key.charAt(0)) {
                 case 'i' -> codec.imputer(key, (UnitCodec.ImputerSummary) value);
                 case 'c' -> codec.classifier(key, (ClassifierStage.Output) value);
+                case 'f' -> codec.finalUnit(key, (FinalStage.Unit) value);
                 default -> codec.permutation(key, (Double) value);
             });
         }
@@ -235,7 +247,7 @@ public final class Runner {
                     counter.done();
                 } else if (key.charAt(0) == 'p') {
                     allSlots = true;
-                } else {
+                } else if (key.charAt(0) != 'f') {
                     needed.add(Integer.parseInt(key.split("/")[1]));
                 }
             }
@@ -264,6 +276,7 @@ public final class Runner {
                 });
             }
             invokeAll(pool, tasks);
+            runFinals(mine, pool, counter);
             Permutations perm = new Permutations(ex, state, (p, k) -> (Double) known(UnitCodec.permutationKey(p, k)),
                     (p, k, v) -> record(UnitCodec.permutationKey(p, k), v), () -> impute(state,
                     allFolds(state), pool, null, counter, false));
@@ -300,6 +313,9 @@ public final class Runner {
                 return null;
             }
             RunResults res = collect(state);
+            if (ex.spec().finalPipelines()) {
+                finals = collectFinals(pool);
+            }
             // phase three: permutation test
             if (ex.spec().significance().permutations() > 0) {
                 String metric = ex.spec().significance().metricColumn();
@@ -317,6 +333,80 @@ public final class Runner {
         } finally {
             pool.shutdownNow();
         }
+    }
+
+    /** The final pipelines of a whole run (null before {@link #run()} or without final pipelines). */
+    public FinalPipelines finals() {
+        return finals;
+    }
+
+    /** Runs the final units of {@code mine} not journaled yet (their imputers fitted first, once each). */
+    private void runFinals(List<String> mine, ExecutorService pool, Counter counter) {
+        FinalStage stage = new FinalStage(ex);
+        List<Integer> todo = new ArrayList<>();
+        for (String key : mine) {
+            if (key.charAt(0) == 'f' && known(key) == null) {
+                todo.add(Integer.parseInt(key.split("/")[1]));
+            }
+        }
+        if (todo.isEmpty()) {
+            return;
+        }
+        Set<String> imputers = new TreeSet<>();
+        todo.forEach(pi -> {
+            Pipeline p = ex.pipelines().get(pi);
+            if (p.featureSet().needsImputer()) {
+                imputers.add(p.imputer());
+            }
+        });
+        fitFinalImputers(imputers, pool);
+        List<Callable<Void>> tasks = new ArrayList<>();
+        for (int pi : todo) {
+            Pipeline p = ex.pipelines().get(pi);
+            tasks.add(() -> {
+                ImputationStage.Final f = p.featureSet().needsImputer() ? finalImputers.get(p.imputer()) : null;
+                record(UnitCodec.finalKey(pi), stage.unit(p, stage.train(p, f)));
+                counter.done();
+                return null;
+            });
+        }
+        invokeAll(pool, tasks);
+    }
+
+    private void fitFinalImputers(Set<String> names, ExecutorService pool) {
+        FinalStage stage = new FinalStage(ex);
+        List<Callable<Void>> tasks = new ArrayList<>();
+        for (String name : names) {
+            if (!finalImputers.containsKey(name)) {
+                tasks.add(() -> {
+                    finalImputers.put(name, stage.imputer(ex.imputer(name)));
+                    return null;
+                });
+            }
+        }
+        invokeAll(pool, tasks);
+    }
+
+    private FinalPipelines collectFinals(ExecutorService pool) {
+        Set<String> used = new TreeSet<>();
+        ex.pipelines().stream().filter(p -> p.featureSet().needsImputer()).forEach(p -> used.add(p.imputer()));
+        fitFinalImputers(used, pool);
+        List<FinalPipelines.Entry> entries = new ArrayList<>();
+        for (int pi = 0; pi < ex.pipelines().size(); pi++) {
+            Pipeline p = ex.pipelines().get(pi);
+            FinalStage.Unit u = (FinalStage.Unit) known(UnitCodec.finalKey(pi));
+            entries.add(new FinalPipelines.Entry(p, u));
+        }
+        Map<String, byte[]> parts = new TreeMap<>();
+        Map<String, String> chosen = new TreeMap<>();
+        for (Resolved.Imputer imp : ex.imputers()) {
+            ImputationStage.Final f = finalImputers.get(imp.name());
+            if (f != null) {
+                parts.put(imp.name(), FinalStage.imputerPart(f, imp.name()));
+                chosen.put(imp.name(), f.imputed().chosen().toString());
+            }
+        }
+        return new FinalPipelines(ex, entries, parts, chosen);
     }
 
     private static Set<Integer> allFolds(State state) {

@@ -32,28 +32,34 @@ public final class NearestNeighboursImputer implements ViewImputer {
     }
 
     @Override
+    public boolean freezable() {
+        return true;
+    }
+
+    @Override
     public Fitted fit(FitContext ctx, Rows source, Rows target, Params params) {
         Shapes.checkTraining(METHOD, source, target);
         int k = Math.min(params.getInt("k"), source.n());
         boolean byDistance = "distance".equals(params.getString("weights"));
-        double[][] train = source.x();
-        double[][] y = target.x();
-        int p = source.p();
-        int q = target.p();
-        return (c, rows) -> {
-            Shapes.checkWidth(METHOD, rows, p);
-            double[][] out = new double[rows.n()][];
-            double[] d2 = new double[train.length];
-            for (int r = 0; r < out.length; r++) {
-                double[] x = rows.x()[r];
-                for (int i = 0; i < train.length; i++) {
-                    d2[i] = squaredDistance(x, train[i]);
-                }
-                int[] nearest = Neighbours.smallest(d2, k);
-                out[r] = average(nearest, d2, y, q, byDistance);
+        return new FrozenImputers.Neighbours(source.x(), target.x(), k, byDistance);
+    }
+
+    /** Imputes rows from the training subjects' source rows and targets. */
+    static double[][] impute(Rows rows, double[][] train, double[][] y, int k, boolean byDistance) {
+        int p = train.length == 0 ? 0 : train[0].length;
+        int q = y.length == 0 ? 0 : y[0].length;
+        Shapes.checkWidth(METHOD, rows, p);
+        double[][] out = new double[rows.n()][];
+        double[] d2 = new double[train.length];
+        for (int r = 0; r < out.length; r++) {
+            double[] x = rows.x()[r];
+            for (int i = 0; i < train.length; i++) {
+                d2[i] = squaredDistance(x, train[i]);
             }
-            return out;
-        };
+            int[] nearest = Neighbours.smallest(d2, k);
+            out[r] = average(nearest, d2, y, q, byDistance);
+        }
+        return out;
     }
 
     private static double[] average(int[] nearest, double[] d2, double[][] y, int q, boolean byDistance) {

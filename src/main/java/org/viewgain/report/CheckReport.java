@@ -80,6 +80,7 @@ public final class CheckReport {
             b.append("  ").append(p.label()).append('\n');
         }
         b.append("model fits in this run: ").append(ex.modelFits()).append('\n');
+        b.append(IndependentText.text(ex));
         b.append('\n').append(duplicates(ex, 20));
         b.append(costWarning(ex).replace("[viewgain] warning: ", ""));
         return b.toString();
@@ -211,7 +212,7 @@ public final class CheckReport {
                 + "Consider the default random-forest, or features.select\n";
     }
 
-    private static String describe(org.viewgain.cohort.View v) {
+    static String describe(org.viewgain.cohort.View v) {
         return (v.isGraph() ? "graph of " + v.regions() + " regions (" + v.baseNames().size() + " edges)"
                 : "table of " + v.baseNames().size() + " columns") + ", present for " + v.subjects().size()
                 + " subjects";

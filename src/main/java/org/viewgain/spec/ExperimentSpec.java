@@ -9,15 +9,34 @@ import java.util.List;
  * @param specFile the spec file itself
  * @param text     the spec file's text (for provenance)
  * @param where    lines of keys, for messages about values checked later (methods, data)
+ * @param independent the {@code independent-cohort} the final pipelines are applied to, or null
+ * @param bundle   whether the final pipelines are fitted and written as a bundle ({@code bundle: true}, implied by
+ *                 an independent cohort)
  */
 public record ExperimentSpec(String experiment, long seed, Path specFile, String text, Specs.Cohort cohort,
                              Specs.View source, Specs.View target, Specs.Features features,
                              List<Specs.Method> imputers, Specs.TrainingImputation imputedForTraining,
                              List<FeatureSet> featureSets, List<Specs.Method> classifiers,
-                             Specs.Validation validation, Specs.Significance significance, SourceMap where) {
+                             Specs.Validation validation, Specs.Significance significance, SourceMap where,
+                             Specs.Independent independent, boolean bundle) {
     public ExperimentSpec {
         imputers = List.copyOf(imputers);
         featureSets = List.copyOf(featureSets);
         classifiers = List.copyOf(classifiers);
+    }
+
+    /** A spec without an independent cohort or bundle. */
+    public ExperimentSpec(String experiment, long seed, Path specFile, String text, Specs.Cohort cohort,
+                          Specs.View source, Specs.View target, Specs.Features features,
+                          List<Specs.Method> imputers, Specs.TrainingImputation imputedForTraining,
+                          List<FeatureSet> featureSets, List<Specs.Method> classifiers,
+                          Specs.Validation validation, Specs.Significance significance, SourceMap where) {
+        this(experiment, seed, specFile, text, cohort, source, target, features, imputers, imputedForTraining,
+                featureSets, classifiers, validation, significance, where, null, false);
+    }
+
+    /** Whether the run refits every pipeline on the whole development cohort after cross-validation. */
+    public boolean finalPipelines() {
+        return bundle || independent != null;
     }
 }

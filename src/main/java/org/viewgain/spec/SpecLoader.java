@@ -47,7 +47,7 @@ public final class SpecLoader {
         Path base = file.toAbsolutePath().getParent();
         Section top = new Section(root, "", problems);
         top.allowOnly(Set.of("experiment", "seed", "cohort", "views", "features", "imputers", "imputed-for-training",
-                "feature-sets", "classifiers", "validation", "significance"));
+                "feature-sets", "classifiers", "validation", "significance", IndependentKeys.KEY, "bundle"));
 
         String experiment = top.text("experiment", "experiment", true);
         if (experiment != null && !experiment.matches("[A-Za-z0-9][A-Za-z0-9._-]{0,79}")) {
@@ -72,6 +72,8 @@ public final class SpecLoader {
         Specs.Validation validation = validation(top.section("validation", false), cohort);
         Specs.Significance significance = significance(top.section("significance", false), sets, validation);
         FeatureSteps.checkScheme(features, validation, problems);
+        Specs.Independent independent = IndependentKeys.read(top, base);
+        boolean bundle = IndependentKeys.bundle(top);
 
         boolean defaultSets = !top.has("feature-sets");
         for (int i = 0; i < sets.size(); i++) {
@@ -91,7 +93,7 @@ public final class SpecLoader {
         }
         problems.throwIfAny();
         return new ExperimentSpec(experiment, seed, file, text, cohort, source, target, features, imputers, training,
-                sets, classifiers, validation, significance, parsed.where());
+                sets, classifiers, validation, significance, parsed.where(), independent, bundle);
     }
 
     private static Specs.Cohort cohort(Section s, Path base) {
