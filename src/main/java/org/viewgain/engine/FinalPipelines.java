@@ -19,6 +19,15 @@ public record FinalPipelines(Experiment experiment, List<Entry> entries, Map<Str
 
     /** One pipeline's final unit. */
     public record Entry(Pipeline pipeline, FinalStage.Unit unit) {
+        /** The grid point chosen by inner cross-validation over the development cohort. */
+        public String chosen() {
+            return unit.choice().params();
+        }
+
+        /** Its inner cross-validated score (NaN when there was nothing to choose). */
+        public double innerScore() {
+            return unit.choice().innerScore();
+        }
     }
 
     /** The pipelines rebuilt from their parts, in the experiment's pipeline order. */

@@ -171,7 +171,7 @@ final class ImputationStage {
             keep[0] = fitted;
         }
         int[] toImpute = last.imputePositions();
-        double[][] got = fitted.impute(ctx, sourceRows(toImpute));
+        double[][] got = toImpute.length == 0 ? new double[0][] : fitted.impute(ctx, sourceRows(toImpute));
         double[][] exact = new double[d.n()][];
         for (int t = 0; t < toImpute.length; t++) {
             out[toImpute[t]] = ImputedFold.compact(got[t]);
