@@ -29,7 +29,7 @@ public record IndependentData(Specs.Independent spec, List<Subject> subjects, in
         View source = ViewLoader.load(spec.source(), ids);
         String diff = CohortShape.difference(source, dev.sourceGraph(), dev.sourceNames());
         if (diff != null) {
-            throw new BadInputException(spec.where() + ".views.source: " + diff);
+            throw new BadInputException(key(spec, "views.source") + ": " + diff);
         }
         View target = null;
         if (spec.target() != null) {
@@ -40,7 +40,7 @@ public record IndependentData(Specs.Independent spec, List<Subject> subjects, in
             target = ViewLoader.load(spec.target(), ids);
             diff = CohortShape.difference(target, dev.targetGraph(), dev.targetNames());
             if (diff != null) {
-                throw new BadInputException(spec.where() + ".views.target: " + diff);
+                throw new BadInputException(key(spec, "views.target") + ": " + diff);
             }
         }
         int[] y = null;
@@ -51,6 +51,12 @@ public record IndependentData(Specs.Independent spec, List<Subject> subjects, in
             }
         }
         return new IndependentData(spec, subjects, y, source, target);
+    }
+
+    /** A key of the cohort for messages: {@code independent-cohort.views.source}, or {@code FILE: views.source}. */
+    private static String key(Specs.Independent spec, String key) {
+        boolean file = spec.where().contains("/") || spec.where().contains("\\") || spec.where().contains(".");
+        return spec.where() + (file ? ": " : ".") + key;
     }
 
     public int n() {
