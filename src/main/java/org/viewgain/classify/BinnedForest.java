@@ -86,6 +86,11 @@ public final class BinnedForest implements ClassifierMethod {
     }
 
     @Override
+    public boolean freezable() {
+        return true;
+    }
+
+    @Override
     public Model fit(FitContext ctx, Rows x, int[] y, int classes, Params params) {
         return fitGrid(List.of(ctx), x, y, classes, List.of(params)).get(0);
     }
@@ -111,21 +116,7 @@ public final class BinnedForest implements ClassifierMethod {
         for (int t = 0; t < trees; t++) {
             forest[t] = grower.grow(new SplittableRandom(Seeds.derive(ctx.seed(), "forest-tree", t)), importance);
         }
-        ClassifierMethod.Model model = rows -> {
-            int[] labels = new int[rows.n()];
-            double[][] scores = new double[rows.n()][classes];
-            for (int i = 0; i < rows.n(); i++) {
-                double[] row = rows.x()[i];
-                for (Tree tree : forest) {
-                    tree.addProbabilities(row, scores[i]);
-                }
-                for (int c = 0; c < classes; c++) {
-                    scores[i][c] /= trees;
-                }
-                labels[i] = TrainingLabels.argmax(scores[i]);
-            }
-            return new Predictions(labels, scores);
-        };
+        ClassifierMethod.Model model = new FrozenModels.Forest(forest, classes);
         return new Explained(model, importance, Explained.IMPURITY);
     }
 

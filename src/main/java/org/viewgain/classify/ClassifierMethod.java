@@ -43,6 +43,14 @@ public interface ClassifierMethod {
     }
 
     /**
+     * Whether its trained models can be frozen into a bundle (they implement {@code frozen.Freezable} and
+     * {@link FrozenModels} reads them back). Smile and Weka models cannot: a bundle holds no Java serialization.
+     */
+    default boolean freezable() {
+        return false;
+    }
+
+    /**
      * Trains a model.
      *
      * @param x       training rows (already scaled/selected by the pipeline)

@@ -27,6 +27,11 @@ final class Explained implements ClassifierMethod.Model {
         this.converged = converged;
     }
 
+    /** The wrapped model. */
+    ClassifierMethod.Model inner() {
+        return inner;
+    }
+
     @Override
     public Predictions predict(Rows x) {
         return inner.predict(x);

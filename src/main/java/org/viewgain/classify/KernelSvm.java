@@ -67,6 +67,11 @@ public final class KernelSvm implements ClassifierMethod {
     }
 
     @Override
+    public boolean freezable() {
+        return true;
+    }
+
+    @Override
     public Model fit(FitContext ctx, Rows x, int[] y, int classes, Params params) {
         return fitGrid(List.of(ctx), x, y, classes, List.of(params)).get(0);
     }
@@ -96,17 +101,7 @@ public final class KernelSvm implements ClassifierMethod {
             fitted.add(Machine.of(s, signs, x, gamma));
         }
         boolean allConverged = converged;
-        return new Model() {
-            @Override
-            public Predictions predict(Rows rows) {
-                return OneAgainstRest.predict(rows, classes, (m, row) -> fitted.get(m).decision(row));
-            }
-
-            @Override
-            public boolean converged() {
-                return allConverged;
-            }
-        };
+        return new FrozenModels.Kernel(List.copyOf(fitted), classes, allConverged);
     }
 
     /** One machine: its support vectors (shared training rows), their coefficients {@code a_i y_i}, and rho. */

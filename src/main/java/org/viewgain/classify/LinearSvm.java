@@ -136,6 +136,11 @@ public final class LinearSvm implements ClassifierMethod {
     }
 
     @Override
+    public boolean freezable() {
+        return true;
+    }
+
+    @Override
     public Model fit(FitContext ctx, Rows x, int[] y, int classes, Params params) {
         TrainingLabels.check(method(), x, y, classes);
         int machines = OneAgainstRest.machines(classes);
@@ -145,14 +150,17 @@ public final class LinearSvm implements ClassifierMethod {
             fitted[m] = solve(x.x(), signs, params.getDouble("C"), params.getDouble("tolerance"),
                     params.getInt("iterations"), Seeds.derive(ctx.seed(), "svm-linear", m));
         }
-        ClassifierMethod.Model model = rows -> OneAgainstRest.predict(rows, classes,
-                (m, row) -> fitted[m].decision(row));
+        double[] b = new double[machines];
+        for (int m = 0; m < machines; m++) {
+            b[m] = fitted[m].b();
+        }
         double[][] w = new double[machines][];
         boolean converged = true;
         for (int m = 0; m < machines; m++) {
             w[m] = fitted[m].w();
             converged &= fitted[m].converged();
         }
+        ClassifierMethod.Model model = new FrozenModels.Linear(w, b, classes);
         return new Explained(model, Explained.absWeights(w, x.x()), Explained.ABS_WEIGHT, converged);
     }
 }

@@ -114,13 +114,15 @@ final class MergeCommand implements Callable<Integer> {
         prov.put("merged_from", shards.stream().map(p -> p.toAbsolutePath().toString()).toList());
         folder.writeText("run.json", prov.toJson());
         RunResults results;
+        org.viewgain.engine.FinalPipelines finals;
         try (Journal merged = Journal.create(folder.dir().resolve(Journal.FILE), now)) {
             byIndex.values().forEach(merged::appendAll);
             results = runner.journal(merged).run();
+            finals = runner.finals();
         } catch (RuntimeException | Error e) {
             return Failure.report(cl, common, folder, prov, e);
         }
-        return RunCommand.finish(cl, common, ex, folder, prov, results, start);
+        return RunCommand.finish(cl, common, ex, folder, prov, results, finals, start);
     }
 
     private static Map<String, Object> withoutShard(Map<String, Object> id) {

@@ -9,7 +9,7 @@ import picocli.CommandLine.Command;
         description = "Does an imputed brain-network view help tell diagnostic groups apart? Leak-free nested "
                 + "cross-validated experiments from a spec file. For research use only, not for diagnosis.",
         subcommands = {CheckCommand.class, RunCommand.class, MergeCommand.class, SlurmCommand.class, FoldsCommand.class,
-            ReportCommand.class, DemoCommand.class, CommandLine.HelpCommand.class},
+            ReportCommand.class, DemoCommand.class, ApplyCommand.class, CommandLine.HelpCommand.class},
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {"0:success", "1:the run failed", "2:bad usage, spec or data"})
 public final class Root implements Runnable {

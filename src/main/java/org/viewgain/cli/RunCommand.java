@@ -131,12 +131,14 @@ final class RunCommand implements Callable<Integer> {
         }
         Progress progress = common.quiet ? Progress.NONE : new ProgressLine(err);
         RunResults results = null;
+        org.viewgain.engine.FinalPipelines finals = null;
         try (journal) {
             Runner runner = new Runner(ex, common.threads(), progress).journal(journal);
             if (shard != null) {
                 runner.runShard(shard);
             } else {
                 results = runner.run();
+                finals = runner.finals();
             }
         } catch (RuntimeException | Error e) {
             return Failure.report(cl, common, folder, prov, e);
@@ -150,7 +152,7 @@ final class RunCommand implements Callable<Integer> {
             return 0;
         }
         try {
-            return finish(cl, common, ex, folder, prov, results, start);
+            return finish(cl, common, ex, folder, prov, results, finals, start);
         } catch (IOException | RuntimeException e) {
             return Failure.report(cl, common, folder, prov, e); // e.g. disk full while writing the tables
         }
@@ -186,7 +188,8 @@ final class RunCommand implements Callable<Integer> {
 
     /** Writes the tables, run.json (complete) and the report of finished results; prints the summary. */
     static int finish(CommandLine cl, Common common, Experiment ex, RunFolder folder, Provenance prov,
-                      RunResults results, Instant start) throws IOException {
+                      RunResults results, org.viewgain.engine.FinalPipelines finals, Instant start)
+            throws IOException {
         PrintWriter out = cl.getOut();
         PrintWriter err = cl.getErr();
         if (!common.quiet) {
@@ -203,6 +206,13 @@ final class RunCommand implements Callable<Integer> {
                 .put("subjects", ex.data().n())
                 .put("pipelines", ex.pipelines().size())
                 .put("model_fits", ex.modelFits());
+        if (finals != null) {
+            org.viewgain.report.IndependentTables.writeFinals(folder, finals, prov.specSha256());
+            if (ex.independent() != null) {
+                org.viewgain.report.IndependentTables.write(folder, org.viewgain.engine.IndependentResults.of(
+                        finals.pipelines(), ex.independent(), org.viewgain.engine.IndependentResults.Settings.of(ex)));
+            }
+        }
         RunWriter.write(folder, results, prov, metrics);
         try {
             HtmlReport.write(folder.dir(), false);

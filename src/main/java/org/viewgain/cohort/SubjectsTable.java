@@ -23,6 +23,7 @@ public final class SubjectsTable {
      * be unique and non-empty, groups non-empty and (when {@code allowedGroups} is non-empty) one of the allowed
      * ones, the site non-empty when a site column is named, and covariates finite numbers.
      *
+     * @param groupColumn      the group column, or {@code null} for a cohort without labels (groups are then empty)
      * @param siteColumn       the site column, or {@code null} when there is none
      * @param allowedGroups    the group labels accepted; {@code null} or empty accepts any label
      */
@@ -40,7 +41,8 @@ public final class SubjectsTable {
         }
         Map<String, Integer> columns = columnIndex(csv, header);
         int idCol = column(csv, columns, idColumn, "id");
-        int groupCol = column(csv, columns, groupColumn, "group");
+        // without a group column (an unlabelled independent cohort) every subject's group is empty
+        int groupCol = groupColumn == null ? -1 : column(csv, columns, groupColumn, "group");
         int siteCol = siteColumn == null ? -1 : column(csv, columns, siteColumn, "site");
         List<String> covNames = covariateColumns == null ? List.of() : covariateColumns;
         int[] covCols = new int[covNames.size()];
@@ -73,11 +75,11 @@ public final class SubjectsTable {
                         + earlier + " and " + row.line() + "; ids must be unique");
             }
             where = where + " (subject " + id + ")";
-            String group = row.cell(groupCol);
-            if (group.isEmpty()) {
+            String group = groupCol < 0 ? "" : row.cell(groupCol);
+            if (groupCol >= 0 && group.isEmpty()) {
                 throw new BadInputException(where + ": empty group in column " + CsvText.show(groupColumn));
             }
-            if (allowedGroups != null && !allowedGroups.isEmpty() && !allowedGroups.contains(group)) {
+            if (groupCol >= 0 && allowedGroups != null && !allowedGroups.isEmpty() && !allowedGroups.contains(group)) {
                 throw new BadInputException(where + ": group " + CsvText.show(group) + " in column "
                         + CsvText.show(groupColumn) + " is not one of " + allowedGroups);
             }

@@ -35,11 +35,31 @@ public final class ScaleCohort {
             throw new IllegalArgumentException("need at least 4 subjects and 2 regions, got " + subjects + " and "
                     + regions);
         }
-        SplittableRandom root = new SplittableRandom(seed);
-        Loadings source = new Loadings(root.split(), regions, 0.3, 1.0);
-        Loadings target = new Loadings(root.split(), regions, 1.5, 0.4);
+        write(dir, subjects, regions, seed, seed, "s", TARGET_MISSING, GROUP_SHIFT);
+    }
+
+    /**
+     * Writes a cohort drawn from the population of {@code populationSeed} (the views' loadings and means) with the
+     * subjects of {@code peopleSeed}: two cohorts with one population seed and two people seeds are a development
+     * and an independent cohort of one invented population. Equal seeds give exactly {@link #write(Path, int, int,
+     * long)}'s cohort.
+     *
+     * @param prefix        the start of every subject id ({@code s} gives s00001, ...)
+     * @param targetMissing the fraction of subjects without a target file (1 for a cohort that never acquired it)
+     * @param groupShift    the group difference in the first latent factor (0: no group signal anywhere)
+     */
+    public static void write(Path dir, int subjects, int regions, long populationSeed, long peopleSeed,
+                             String prefix, double targetMissing, double groupShift) {
+        if (!(subjects >= 4 && regions >= 2)) {
+            throw new IllegalArgumentException("need at least 4 subjects and 2 regions, got " + subjects + " and "
+                    + regions);
+        }
+        SplittableRandom pop = new SplittableRandom(populationSeed);
+        Loadings source = new Loadings(pop.split(), regions, 0.3, 1.0);
+        Loadings target = new Loadings(pop.split(), regions, 1.5, 0.4);
+        SplittableRandom root = populationSeed == peopleSeed ? pop : new SplittableRandom(peopleSeed);
         SplittableRandom people = root.split();
-        boolean[] missing = pick(subjects, (int) Math.round(TARGET_MISSING * subjects), root.split());
+        boolean[] missing = pick(subjects, (int) Math.round(targetMissing * subjects), root.split());
         boolean[] patient = pick(subjects, subjects / 2, root.split());
         String header = header(regions);
         try {
@@ -48,7 +68,7 @@ public final class ScaleCohort {
             try (BufferedWriter w = Files.newBufferedWriter(dir.resolve("subjects.csv"), StandardCharsets.UTF_8)) {
                 w.write("subject,group,site\n");
                 for (int s = 0; s < subjects; s++) {
-                    w.write(id(s) + "," + (patient[s] ? "patient" : "control") + ","
+                    w.write(id(prefix, s) + "," + (patient[s] ? "patient" : "control") + ","
                             + (s % 2 == 0 ? "north" : "south") + "\n");
                 }
             }
@@ -56,11 +76,11 @@ public final class ScaleCohort {
                 SplittableRandom rnd = people.split();
                 double[] z = new double[FACTORS];
                 for (int k = 0; k < FACTORS; k++) {
-                    z[k] = rnd.nextGaussian() + (k == 0 ? (patient[s] ? 0.5 : -0.5) * GROUP_SHIFT : 0);
+                    z[k] = rnd.nextGaussian() + (k == 0 ? (patient[s] ? 0.5 : -0.5) * groupShift : 0);
                 }
-                writeMatrix(thickness.resolve(id(s) + ".csv"), header, source.draw(z, s % 2 == 1, rnd));
+                writeMatrix(thickness.resolve(id(prefix, s) + ".csv"), header, source.draw(z, s % 2 == 1, rnd));
                 double[][] t = target.draw(z, false, rnd);
-                Path file = area.resolve(id(s) + ".csv");
+                Path file = area.resolve(id(prefix, s) + ".csv");
                 if (missing[s]) {
                     Files.deleteIfExists(file);
                 } else {
@@ -82,7 +102,11 @@ public final class ScaleCohort {
     }
 
     static String id(int s) {
-        return String.format("s%05d", s + 1);
+        return id("s", s);
+    }
+
+    static String id(String prefix, int s) {
+        return String.format("%s%05d", prefix, s + 1);
     }
 
     /** A uniform random subset of exactly {@code count} of {@code n} indices. */

@@ -76,7 +76,6 @@ final class ClassifierStage {
      */
     Output run(Pipeline p, int permutation, FoldPlan plan, int repeat, int fold, int[] innerOf, ImputedFold imputed,
                int[] labels) {
-        Resolved.Classifier cl = ex.classifier(p.classifier());
         int[] test = Arrays.stream(plan.test(repeat, fold)).filter(i -> ex.inPopulation(p.featureSet(), i))
                 .toArray();
         if (test.length == 0) {
@@ -84,6 +83,49 @@ final class ClassifierStage {
         }
         int[] train = Arrays.stream(plan.train(repeat, fold)).filter(i -> ex.inPopulation(p.featureSet(), i))
                 .toArray();
+        Trained trained = train(p, permutation, repeat, fold, train, innerOf, imputed, labels);
+        FitChain.Fitted model = trained.model();
+        Predictions pr = model.predict(rows(p.featureSet(), test, imputed));
+        List<RunResults.Prediction> out = new ArrayList<>(test.length);
+        int positive = ex.spec().cohort().groups().size() == 2 ? ex.spec().cohort().positiveIndex() : -1;
+        for (int t = 0; t < test.length; t++) {
+            double score = Double.NaN;
+            double[] scores = pr.hasScores() ? pr.scores()[t] : null;
+            if (scores != null) {
+                score = positive >= 0 ? scores[positive] : scores[pr.labels()[t]];
+            }
+            out.add(new RunResults.Prediction(p, repeat, fold, test[t], labels[test[t]], pr.labels()[t], score,
+                    scores));
+        }
+        Importance.Fold used = permutation == 0 ? new Importance.Fold(p, repeat, fold, trained.selected(),
+                model.inputNames(), model.model().importance(), model.model().importanceKind()) : null;
+        return new Output(out, trained.choice(ex, p, repeat, fold), used);
+    }
+
+    /** A pipeline trained on a training set: the fitted chain, the chosen grid point and how tuning went. */
+    record Trained(FitChain.Fitted model, Point chosen, double innerScore, int points, int unconverged,
+                   boolean selected) {
+        RunResults.Choice choice(Experiment ex, Pipeline p, int repeat, int fold) {
+            return new RunResults.Choice(repeat, fold, "classifier", p.imputer(), p.featureSet().label(),
+                    p.classifier(), chosen.describe(ex), innerScore, points, unconverged);
+        }
+    }
+
+    /**
+     * A final pipeline: tuned by inner cross-validation over every development subject of its population and fitted
+     * on them all ({@code innerOf} from {@link InnerFolds#whole}, {@code imputed} from the imputer's whole-cohort
+     * fit).
+     */
+    Trained wholeCohort(Pipeline p, int[] innerOf, ImputedFold imputed) {
+        int[] train = java.util.stream.IntStream.range(0, ex.data().n())
+                .filter(i -> ex.inPopulation(p.featureSet(), i)).toArray();
+        return train(p, 0, ImputationStage.FINAL, ImputationStage.FINAL, train, innerOf, imputed, ex.data().y());
+    }
+
+    /** Tunes in the inner folds of {@code train} and fits the chosen point on all of {@code train}. */
+    private Trained train(Pipeline p, int permutation, int repeat, int fold, int[] train, int[] innerOf,
+                          ImputedFold imputed, int[] labels) {
+        Resolved.Classifier cl = ex.classifier(p.classifier());
         Rows trainRows = rows(p.featureSet(), train, imputed);
         int[] yTrain = pick(labels, train);
         FitContext base = new FitContext(permutation, repeat, fold, FitContext.WHOLE, FitContext.Role.FINAL, 0L);
@@ -125,23 +167,7 @@ final class ClassifierStage {
         if (!model.model().converged()) {
             unconverged[0]++;
         }
-        Predictions pr = model.predict(rows(p.featureSet(), test, imputed));
-        List<RunResults.Prediction> out = new ArrayList<>(test.length);
-        int positive = ex.spec().cohort().groups().size() == 2 ? ex.spec().cohort().positiveIndex() : -1;
-        for (int t = 0; t < test.length; t++) {
-            double score = Double.NaN;
-            double[] scores = pr.hasScores() ? pr.scores()[t] : null;
-            if (scores != null) {
-                score = positive >= 0 ? scores[positive] : scores[pr.labels()[t]];
-            }
-            out.add(new RunResults.Prediction(p, repeat, fold, test[t], labels[test[t]], pr.labels()[t], score,
-                    scores));
-        }
-        Importance.Fold used = permutation == 0 ? new Importance.Fold(p, repeat, fold, sel != null,
-                model.inputNames(), model.model().importance(), model.model().importanceKind()) : null;
-        return new Output(out, new RunResults.Choice(repeat, fold, "classifier", p.imputer(),
-                p.featureSet().label(), p.classifier(), chosen.describe(ex), innerScore, points.size(), unconverged[0]),
-                used);
+        return new Trained(model, chosen, innerScore, points.size(), unconverged[0], sel != null);
     }
 
     /**

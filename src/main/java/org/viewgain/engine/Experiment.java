@@ -10,16 +10,23 @@ import org.viewgain.spec.FeatureSet;
 /**
  * Everything a run needs, checked and ready: the spec, the loaded data, the fold plan, the resolved methods and the
  * list of pipelines in output order, the scaling step (null for none), the other steps fitted inside every fit, and
- * the possible duplicate scans found in the source view.
+ * the possible duplicate scans found in the source view, and the independent cohort (null when the spec has none).
  */
 public record Experiment(ExperimentSpec spec, StudyData data, FoldPlan plan, List<Resolved.Imputer> imputers,
                          List<Resolved.Classifier> classifiers, List<Pipeline> pipelines, Transform scaler,
-                         Preprocessing prep, List<Duplicates.Pair> duplicates) {
+                         Preprocessing prep, List<Duplicates.Pair> duplicates, IndependentData independent) {
     public Experiment {
         imputers = List.copyOf(imputers);
         classifiers = List.copyOf(classifiers);
         pipelines = List.copyOf(pipelines);
         duplicates = List.copyOf(duplicates);
+    }
+
+    /** An experiment without an independent cohort. */
+    public Experiment(ExperimentSpec spec, StudyData data, FoldPlan plan, List<Resolved.Imputer> imputers,
+                      List<Resolved.Classifier> classifiers, List<Pipeline> pipelines, Transform scaler,
+                      Preprocessing prep, List<Duplicates.Pair> duplicates) {
+        this(spec, data, plan, imputers, classifiers, pipelines, scaler, prep, duplicates, null);
     }
 
     /** An experiment with scaling as the only step and no duplicate check. */

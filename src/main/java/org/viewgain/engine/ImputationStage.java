@@ -56,6 +56,29 @@ final class ImputationStage {
         return fit(imp, inner, fit, validation, false);
     }
 
+    /** The final imputer of a run: tuned and fitted on every development subject with an observed target. */
+    record Final(ImputedFold imputed, ViewImputer.Fitted fitted) {
+    }
+
+    /**
+     * Fits the imputer on the whole development cohort as an outer fold fits it on its training set: grid chosen by
+     * cross-validated MAE in imputation folds over all subjects, cross-fitted imputations of every subject (or the
+     * observed targets, per {@code imputed-for-training}), and the final fit on every subject with a target.
+     */
+    Final wholeCohort(Resolved.Imputer imp) {
+        FitContext base = new FitContext(0, FINAL, FINAL, FitContext.WHOLE, FitContext.Role.FINAL, 0L);
+        int[] all = java.util.stream.IntStream.range(0, ex.data().n()).toArray();
+        Level level = new Level(base, FitContext.Role.CROSS_FIT, FitContext.Role.FINAL,
+                ImputationFolds.of(ex, all, Seeds.derive(ex.spec().seed(), "imputation-folds", "final")),
+                new Object[] {"impute", "final"});
+        ViewImputer.Fitted[] kept = new ViewImputer.Fitted[1];
+        ImputedFold fold = fit(imp, level, all, new int[0], false, kept);
+        return new Final(fold, kept[0]);
+    }
+
+    /** The repeat and fold coordinates of fits on the whole development cohort (no outer fold has them). */
+    static final int FINAL = -1;
+
     /**
      * Where a level of imputation happens: the context its fits derive from, the roles of its cross-fits and of its
      * final fit, its imputation folds and the head of its seed derivations.
@@ -76,6 +99,11 @@ final class ImputationStage {
     }
 
     private ImputedFold fit(Resolved.Imputer imp, Level level, int[] train, int[] test, boolean scoreTest) {
+        return fit(imp, level, train, test, scoreTest, null);
+    }
+
+    private ImputedFold fit(Resolved.Imputer imp, Level level, int[] train, int[] test, boolean scoreTest,
+                            ViewImputer.Fitted[] keep) {
         StudyData d = ex.data();
         boolean crossFit = ex.spec().imputedForTraining() == Specs.TrainingImputation.CROSS_FITTED;
         int k = ex.spec().validation().innerFolds();
@@ -141,8 +169,11 @@ final class ImputationStage {
                 level.seed(runSeed, "final", imp.name(), chosen.toString()));
         ViewImputer.Fitted fitted = imp.method().fit(ctx, sourceRows(withTarget), targetRows(withTarget), chosen,
                 d.sourceDistances());
+        if (keep != null) {
+            keep[0] = fitted;
+        }
         int[] toImpute = last.imputePositions();
-        double[][] got = fitted.impute(ctx, sourceRows(toImpute));
+        double[][] got = toImpute.length == 0 ? new double[0][] : fitted.impute(ctx, sourceRows(toImpute));
         double[][] exact = new double[d.n()][];
         for (int t = 0; t < toImpute.length; t++) {
             out[toImpute[t]] = ImputedFold.compact(got[t]);

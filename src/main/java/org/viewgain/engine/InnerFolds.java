@@ -33,4 +33,12 @@ final class InnerFolds {
         }
         return out;
     }
+
+    /** Inner folds over the whole development cohort, for tuning a final pipeline (real labels). */
+    static int[] whole(Experiment ex) {
+        int n = ex.data().n();
+        int[] strata = ex.data().y().clone();
+        return FoldPlan.stratifiedAssignment(strata, ex.spec().validation().innerFolds(),
+                Seeds.derive(ex.spec().seed(), "inner-folds", "final"));
+    }
 }

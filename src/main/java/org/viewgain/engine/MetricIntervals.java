@@ -39,10 +39,15 @@ final class MetricIntervals {
         if (perRepeat.isEmpty() || perRepeat.get(0).isEmpty()) {
             return out;
         }
-        Specs.Significance sig = ex.spec().significance();
+        return of(ex.spec().significance(), ex.spec().cohort().groups().size(), ex.spec().cohort().positiveIndex(),
+                ex.spec().seed(), p.label(), perRepeat, out, estimates);
+    }
+
+    /** The same for settings given one by one (a bundle applied to a later cohort has no experiment). */
+    static Map<String, Ci> of(Specs.Significance sig, int classes, int positive, long runSeed, String label,
+                              List<List<RunResults.Prediction>> perRepeat, Map<String, Ci> out,
+                              Map<String, Double> estimates) {
         double conf = sig.confidence();
-        int classes = ex.spec().cohort().groups().size();
-        int positive = ex.spec().cohort().positiveIndex();
         // align repeats by subject
         List<RunResults.Prediction> first = perRepeat.get(0);
         int n = first.size();
@@ -73,7 +78,7 @@ final class MetricIntervals {
             List<String> boot = classes == 2 ? List.of("balanced_accuracy", "f1", "mcc")
                     : List.of("accuracy", "balanced_accuracy", "sensitivity", "specificity", "f1", "mcc");
             for (String m : boot) {
-                long seed = Seeds.derive(ex.spec().seed(), "bootstrap", p.label(), m);
+                long seed = Seeds.derive(runSeed, "bootstrap", label, m);
                 Interval ci = Bootstrap.percentile(truth, units -> {
                     double sum = 0;
                     int[] t = new int[units.length];

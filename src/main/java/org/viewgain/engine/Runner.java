@@ -32,6 +32,8 @@ public final class Runner {
     private Journal journal;
     private UnitCodec codec;
     private final AvailabilityRun curve;
+    private final Map<String, ImputationStage.Final> finalImputers = new ConcurrentHashMap<>();
+    private FinalPipelines finals;
 
     public Runner(Experiment ex, int threads, Progress progress) {
         this.ex = ex;
@@ -110,7 +112,8 @@ public final class Runner {
             folds += ex.plan().folds(r);
         }
         return folds * ((anyImputed() ? ex.imputers().size() : 0) + ex.pipelines().size())
-                + (long) ex.spec().significance().permutations() * ex.pipelines().size() + curve.keys(null).size();
+                + (long) ex.spec().significance().permutations() * ex.pipelines().size() + curve.keys(null).size()
+                + (ex.spec().finalPipelines() ? ex.pipelines().size() : 0);
     }
 
     /**
@@ -161,6 +164,13 @@ public final class Runner {
             }
         }
         out.addAll(curve.keys(shard));
+        if (ex.spec().finalPipelines()) {
+            for (int pi = 0; pi < pipelines; pi++) {
+                if (shard == null || shard.owns(pi)) {
+                    out.add(UnitCodec.finalKey(pi));
+                }
+            }
+        }
         if (shard != null) {
             for (int pi = 0; pi < pipelines; pi++) {
                 for (int k = 0; k < ex.spec().significance().permutations(); k++) {
@@ -189,6 +199,7 @@ public final class Runner {
                 v = switch (kind(key)) {
                     case 'i' -> codec.imputer(rec);
                     case 'c' -> codec.classifier(rec);
+                    case 'f' -> codec.finalUnit(rec);
                     default -> UnitCodec.permutation(rec);
                 };
                 done.put(key, v);
@@ -208,6 +219,7 @@ public final class Runner {
             journal.append(switch (kind(key)) {
                 case 'i' -> codec.imputer(key, (UnitCodec.ImputerSummary) value);
                 case 'c' -> codec.classifier(key, (ClassifierStage.Output) value);
+                case 'f' -> codec.finalUnit(key, (FinalStage.Unit) value);
                 default -> codec.permutation(key, (Double) value);
             });
         }
@@ -243,7 +255,7 @@ public final class Runner {
                     counter.done();
                 } else if (key.charAt(0) == 'p') {
                     allSlots = true;
-                } else if (!AvailabilityRun.isCurveKey(key)) {
+                } else if (!AvailabilityRun.isCurveKey(key) && key.charAt(0) != 'f') {
                     needed.add(Integer.parseInt(key.split("/")[1]));
                 }
             }
@@ -274,6 +286,7 @@ public final class Runner {
             invokeAll(pool, tasks);
             // the availability curve: its own units, level by level, on the same folds
             curve.run(mine, state.innerOf, host(pool, counter));
+            runFinals(mine, pool, counter);
             Permutations perm = new Permutations(ex, state, (p, k) -> (Double) known(UnitCodec.permutationKey(p, k)),
                     (p, k, v) -> record(UnitCodec.permutationKey(p, k), v), () -> impute(state,
                     allFolds(state), pool, null, counter, false));
@@ -310,6 +323,9 @@ public final class Runner {
                 return null;
             }
             RunResults res = collect(state).withAvailability(curve.collect(host(pool, counter)));
+            if (ex.spec().finalPipelines()) {
+                finals = collectFinals(pool);
+            }
             // phase three: permutation test
             if (ex.spec().significance().permutations() > 0) {
                 String metric = ex.spec().significance().metricColumn();
@@ -327,6 +343,80 @@ public final class Runner {
         } finally {
             pool.shutdownNow();
         }
+    }
+
+    /** The final pipelines of a whole run (null before {@link #run()} or without final pipelines). */
+    public FinalPipelines finals() {
+        return finals;
+    }
+
+    /** Runs the final units of {@code mine} not journaled yet (their imputers fitted first, once each). */
+    private void runFinals(List<String> mine, ExecutorService pool, Counter counter) {
+        FinalStage stage = new FinalStage(ex);
+        List<Integer> todo = new ArrayList<>();
+        for (String key : mine) {
+            if (key.charAt(0) == 'f' && known(key) == null) {
+                todo.add(Integer.parseInt(key.split("/")[1]));
+            }
+        }
+        if (todo.isEmpty()) {
+            return;
+        }
+        Set<String> imputers = new TreeSet<>();
+        todo.forEach(pi -> {
+            Pipeline p = ex.pipelines().get(pi);
+            if (p.featureSet().needsImputer()) {
+                imputers.add(p.imputer());
+            }
+        });
+        fitFinalImputers(imputers, pool);
+        List<Callable<Void>> tasks = new ArrayList<>();
+        for (int pi : todo) {
+            Pipeline p = ex.pipelines().get(pi);
+            tasks.add(() -> {
+                ImputationStage.Final f = p.featureSet().needsImputer() ? finalImputers.get(p.imputer()) : null;
+                record(UnitCodec.finalKey(pi), stage.unit(p, stage.train(p, f)));
+                counter.done();
+                return null;
+            });
+        }
+        invokeAll(pool, tasks);
+    }
+
+    private void fitFinalImputers(Set<String> names, ExecutorService pool) {
+        FinalStage stage = new FinalStage(ex);
+        List<Callable<Void>> tasks = new ArrayList<>();
+        for (String name : names) {
+            if (!finalImputers.containsKey(name)) {
+                tasks.add(() -> {
+                    finalImputers.put(name, stage.imputer(ex.imputer(name)));
+                    return null;
+                });
+            }
+        }
+        invokeAll(pool, tasks);
+    }
+
+    private FinalPipelines collectFinals(ExecutorService pool) {
+        Set<String> used = new TreeSet<>();
+        ex.pipelines().stream().filter(p -> p.featureSet().needsImputer()).forEach(p -> used.add(p.imputer()));
+        fitFinalImputers(used, pool);
+        List<FinalPipelines.Entry> entries = new ArrayList<>();
+        for (int pi = 0; pi < ex.pipelines().size(); pi++) {
+            Pipeline p = ex.pipelines().get(pi);
+            FinalStage.Unit u = (FinalStage.Unit) known(UnitCodec.finalKey(pi));
+            entries.add(new FinalPipelines.Entry(p, u));
+        }
+        Map<String, byte[]> parts = new TreeMap<>();
+        Map<String, String> chosen = new TreeMap<>();
+        for (Resolved.Imputer imp : ex.imputers()) {
+            ImputationStage.Final f = finalImputers.get(imp.name());
+            if (f != null) {
+                parts.put(imp.name(), FinalStage.imputerPart(f, imp.name()));
+                chosen.put(imp.name(), f.imputed().chosen().toString());
+            }
+        }
+        return new FinalPipelines(ex, entries, parts, chosen);
     }
 
     private static Set<Integer> allFolds(State state) {

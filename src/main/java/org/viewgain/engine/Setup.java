@@ -51,8 +51,16 @@ public final class Setup {
                     data.y()).applyInPlace(rows);
         }
         List<Duplicates.Pair> duplicates = Duplicates.find(base, spec.cohort().duplicateThreshold());
+        FinalChecks.freezable(spec, imputers, classifiers, pipelines, problems);
+        problems.throwIfAny();
+        IndependentData independent = null;
+        if (spec.independent() != null) {
+            Experiment dev = new Experiment(spec, data, plan, imputers, classifiers, pipelines,
+                    methods.scaler(spec.features().scale()), prep, duplicates);
+            independent = IndependentData.load(spec.independent(), CohortShape.of(dev));
+        }
         Experiment ex = new Experiment(spec, data, plan, imputers, classifiers, pipelines,
-                methods.scaler(spec.features().scale()), prep, duplicates);
+                methods.scaler(spec.features().scale()), prep, duplicates, independent);
         checkPlan(ex, problems);
         Availability.check(ex, problems);
         problems.throwIfAny();

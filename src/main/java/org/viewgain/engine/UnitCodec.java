@@ -31,6 +31,29 @@ final class UnitCodec {
         return "c/" + slot + "/" + pipeline;
     }
 
+    /** Key of a final pipeline's unit (pipeline index). */
+    static String finalKey(int pipeline) {
+        return "f/" + pipeline;
+    }
+
+    /** A final unit's record: its choice and its frozen parts in Base64 (exact bytes). */
+    ObjectNode finalUnit(String key, FinalStage.Unit u) {
+        ObjectNode o = record(key);
+        o.set("choice", choice(u.choice()));
+        ArrayNode steps = o.putArray("steps");
+        java.util.Base64.Encoder b64 = java.util.Base64.getEncoder();
+        u.steps().forEach(b -> steps.add(b64.encodeToString(b)));
+        o.put("model", b64.encodeToString(u.model()));
+        return o;
+    }
+
+    FinalStage.Unit finalUnit(JsonNode o) {
+        java.util.Base64.Decoder b64 = java.util.Base64.getDecoder();
+        List<byte[]> steps = new ArrayList<>();
+        o.get("steps").forEach(n -> steps.add(b64.decode(n.asText())));
+        return new FinalStage.Unit(choice(o.get("choice")), steps, b64.decode(o.get("model").asText()));
+    }
+
     /** Key of a phase-three unit (pipeline, permutation index from 0). */
     static String permutationKey(int pipeline, int k) {
         return "p/" + pipeline + "/" + k;

@@ -26,17 +26,14 @@ public final class MeanImputer implements ViewImputer {
     }
 
     @Override
+    public boolean freezable() {
+        return true;
+    }
+
+    @Override
     public Fitted fit(FitContext ctx, Rows source, Rows target, Params params) {
         Shapes.checkTraining(METHOD, source, target);
         double[] means = Centring.columnMeans(target.x(), target.p());
-        int p = source.p();
-        return (c, rows) -> {
-            Shapes.checkWidth(METHOD, rows, p);
-            double[][] out = new double[rows.n()][];
-            for (int i = 0; i < out.length; i++) {
-                out[i] = means.clone();
-            }
-            return out;
-        };
+        return new FrozenImputers.Mean(means, source.p());
     }
 }

@@ -32,6 +32,11 @@ public final class NearestNeighboursImputer implements ViewImputer {
     }
 
     @Override
+    public boolean freezable() {
+        return true;
+    }
+
+    @Override
     public Fitted fit(FitContext ctx, Rows source, Rows target, Params params) {
         return fit(ctx, source, target, params, null);
     }
@@ -42,29 +47,34 @@ public final class NearestNeighboursImputer implements ViewImputer {
         Shapes.checkTraining(METHOD, source, target);
         int k = Math.min(params.getInt("k"), source.n());
         boolean byDistance = "distance".equals(params.getString("weights"));
-        double[][] train = source.x();
-        double[][] y = target.x();
-        int p = source.p();
-        int q = target.p();
-        return (c, rows) -> {
-            Shapes.checkWidth(METHOD, rows, p);
-            double[][] out = new double[rows.n()][];
-            double[][] table = shared == null ? null : shared.squared(rows.ids(), source.ids());
-            double[] d2 = new double[train.length];
-            for (int r = 0; r < out.length; r++) {
-                if (table != null) {
-                    d2 = table[r];
-                } else {
-                    double[] x = rows.x()[r];
-                    for (int i = 0; i < train.length; i++) {
-                        d2[i] = squaredDistance(x, train[i]);
-                    }
+        return new FrozenImputers.Neighbours(source.x(), target.x(), k, byDistance, source, shared);
+    }
+
+    /**
+     * Imputes rows from the training subjects' source rows and targets; the distances come from {@code shared} when
+     * it holds those of the rows to {@code trainRows} (null for none), otherwise they are computed here.
+     */
+    static double[][] impute(Rows rows, double[][] train, double[][] y, int k, boolean byDistance,
+                             Rows trainRows, SourceDistances shared) {
+        int p = train.length == 0 ? 0 : train[0].length;
+        int q = y.length == 0 ? 0 : y[0].length;
+        Shapes.checkWidth(METHOD, rows, p);
+        double[][] out = new double[rows.n()][];
+        double[][] table = shared == null || trainRows == null ? null : shared.squared(rows, trainRows);
+        double[] d2 = new double[train.length];
+        for (int r = 0; r < out.length; r++) {
+            if (table != null) {
+                d2 = table[r];
+            } else {
+                double[] x = rows.x()[r];
+                for (int i = 0; i < train.length; i++) {
+                    d2[i] = squaredDistance(x, train[i]);
                 }
-                int[] nearest = Neighbours.smallest(d2, k);
-                out[r] = average(nearest, d2, y, q, byDistance);
             }
-            return out;
-        };
+            int[] nearest = Neighbours.smallest(d2, k);
+            out[r] = average(nearest, d2, y, q, byDistance);
+        }
+        return out;
     }
 
     private static double[] average(int[] nearest, double[] d2, double[][] y, int q, boolean byDistance) {

@@ -32,6 +32,11 @@ public final class RidgeImputer implements ViewImputer {
     }
 
     @Override
+    public boolean freezable() {
+        return true;
+    }
+
+    @Override
     public Fitted fit(FitContext ctx, Rows source, Rows target, Params params) {
         return fit(source, target, params.getDouble("alpha"), Form.AUTO);
     }
@@ -51,22 +56,15 @@ public final class RidgeImputer implements ViewImputer {
             double[][] k = SmileMatrices.gram(xc);
             addToDiagonal(k, alpha);
             double[][] a = SmileMatrices.solveSpd(k, yc);
-            return (c, rows) -> {
-                Shapes.checkWidth(METHOD, rows, p);
-                double[][] kNew = SmileMatrices.cross(Centring.centre(rows.x(), mx), xc);
-                return addMeans(SmileMatrices.times(kNew, a), my);
-            };
+            return new FrozenImputers.RidgeDual(mx, my, xc, a);
         }
         double[][] g = SmileMatrices.transposeTimes(xc, xc);
         addToDiagonal(g, alpha);
         double[][] coef = SmileMatrices.solveSpd(g, SmileMatrices.transposeTimes(xc, yc));
-        return (c, rows) -> {
-            Shapes.checkWidth(METHOD, rows, p);
-            return addMeans(SmileMatrices.times(Centring.centre(rows.x(), mx), coef), my);
-        };
+        return new FrozenImputers.RidgePrimal(mx, my, coef);
     }
 
-    private static double[][] addMeans(double[][] out, double[] my) {
+    static double[][] addMeans(double[][] out, double[] my) {
         for (double[] row : out) {
             for (int j = 0; j < row.length; j++) {
                 row[j] += my[j];

@@ -64,6 +64,38 @@ public final class SourceDistances {
     }
 
     /**
+     * The squared distances from each query row to each training row ({@code out[q][t]}), or null when a row is not
+     * a subject's source view as the table holds it (another cohort's subject with the same id, transformed rows):
+     * the caller then computes them itself. Checking the rows costs one pass over them, a small part of the
+     * distances it saves.
+     */
+    public double[][] squared(org.viewgain.cohort.Rows queries, org.viewgain.cohort.Rows train) {
+        if (!holds(queries) || !holds(train)) {
+            return null;
+        }
+        return squared(queries.ids(), train.ids());
+    }
+
+    private boolean holds(org.viewgain.cohort.Rows rows) {
+        for (int r = 0; r < rows.n(); r++) {
+            if (!rowOf.containsKey(rows.ids().get(r))) {
+                return false;
+            }
+            float[] v = view.apply(rows.ids().get(r));
+            double[] x = rows.x()[r];
+            if (v.length != x.length) {
+                return false;
+            }
+            for (int j = 0; j < v.length; j++) {
+                if (x[j] != v[j]) {
+                    return false;
+                }
+            }
+        }
+        return true;
+    }
+
+    /**
      * The squared distances from each query subject to each training subject ({@code out[q][t]}), or null when a
      * subject is not in the table (the caller computes them itself).
      */

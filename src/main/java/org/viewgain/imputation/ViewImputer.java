@@ -31,6 +31,14 @@ public interface ViewImputer {
     }
 
     /**
+     * Whether its fitted imputers can be frozen into a bundle (they implement {@code frozen.Freezable} and
+     * {@link FrozenImputers} reads them back).
+     */
+    default boolean freezable() {
+        return false;
+    }
+
+    /**
      * Fits on training subjects that have both views.
      *
      * @param ctx    where the fit happens and the seed to use

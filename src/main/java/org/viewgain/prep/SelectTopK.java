@@ -140,7 +140,8 @@ public final class SelectTopK implements Transform {
     }
 
     /** A fitted selection: which training columns are kept. */
-    public static final class Selection implements Transform.Fitted {
+    public static final class Selection implements Transform.Fitted, org.viewgain.frozen.Freezable {
+        static final String KIND = "select-top-k";
         private final int[] kept;
         private final List<String> keptNames;
         private final double[] scores;
@@ -168,6 +169,38 @@ public final class SelectTopK implements Transform {
         /** The score of every input column (higher = more likely kept). */
         public double[] scores() {
             return scores.clone();
+        }
+
+        @Override
+        public String kind() {
+            return KIND;
+        }
+
+        @Override
+        public void freeze(org.viewgain.frozen.FrozenOut out) {
+            out.integers(kept).texts(keptNames).numbers(scores);
+        }
+
+        /** A selection read back from its part. */
+        static Selection thaw(org.viewgain.frozen.FrozenIn in) {
+            int[] kept = in.integers();
+            List<String> names = in.texts();
+            double[] scores = in.numbers();
+            if (kept == null || scores == null || names.size() != kept.length) {
+                throw in.bad("kept columns and their names disagree");
+            }
+            for (int j : kept) {
+                if (j < 0 || j >= scores.length) {
+                    throw in.bad("a kept column lies outside the input");
+                }
+            }
+            return new Selection(kept, names, scores, true);
+        }
+
+        private Selection(int[] kept, List<String> keptNames, double[] scores, boolean named) {
+            this.kept = kept;
+            this.scores = scores;
+            this.keptNames = List.copyOf(keptNames);
         }
 
         @Override

@@ -34,25 +34,60 @@ public final class Standardize implements Transform {
         for (int j = 0; j < p; j++) {
             sd[j] = n > 1 ? Math.sqrt(sd[j] / (n - 1)) : 0;
         }
-        return new Fitted() {
-            @Override
-            public Rows apply(Rows rows) {
-                double[][] out = new double[rows.n()][];
-                for (int i = 0; i < rows.n(); i++) {
-                    out[i] = rows.x()[i].clone();
-                }
-                return applyInPlace(rows.withValues(out, rows.featureNames()));
-            }
+        return new Scaling(mean, sd);
+    }
 
-            @Override
-            public Rows applyInPlace(Rows rows) {
-                for (double[] r : rows.x()) {
-                    for (int j = 0; j < p; j++) {
-                        r[j] = sd[j] > 0 ? (r[j] - mean[j]) / sd[j] : 0;
-                    }
-                }
-                return rows;
+    /** Fitted standardization: the training means and standard deviations. */
+    static final class Scaling implements Fitted, org.viewgain.frozen.Freezable {
+        static final String KIND = "standardize";
+        private final double[] mean;
+        private final double[] sd;
+
+        Scaling(double[] mean, double[] sd) {
+            this.mean = mean;
+            this.sd = sd;
+        }
+
+        @Override
+        public String kind() {
+            return KIND;
+        }
+
+        @Override
+        public void freeze(org.viewgain.frozen.FrozenOut out) {
+            out.numbers(mean).numbers(sd);
+        }
+
+        static Scaling thaw(org.viewgain.frozen.FrozenIn in) {
+            double[] mean = in.numbers();
+            double[] sd = in.numbers();
+            if (mean == null || sd == null || mean.length != sd.length) {
+                throw in.bad("means and standard deviations differ in length");
             }
-        };
+            return new Scaling(mean, sd);
+        }
+
+        @Override
+        public Rows apply(Rows rows) {
+            double[][] out = new double[rows.n()][];
+            for (int i = 0; i < rows.n(); i++) {
+                out[i] = rows.x()[i].clone();
+            }
+            return applyInPlace(rows.withValues(out, rows.featureNames()));
+        }
+
+        @Override
+        public Rows applyInPlace(Rows rows) {
+            int p = mean.length;
+            if (rows.p() != p) {
+                throw new IllegalArgumentException("standardize was fitted on " + p + " columns, got " + rows.p());
+            }
+            for (double[] r : rows.x()) {
+                for (int j = 0; j < p; j++) {
+                    r[j] = sd[j] > 0 ? (r[j] - mean[j]) / sd[j] : 0;
+                }
+            }
+            return rows;
+        }
     }
 }

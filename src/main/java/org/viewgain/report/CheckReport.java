@@ -81,6 +81,7 @@ public final class CheckReport {
         }
         b.append("model fits in this run: ").append(ex.modelFits()).append('\n');
         b.append(availability(ex));
+        b.append(IndependentText.text(ex));
         b.append('\n').append(duplicates(ex, 20));
         b.append(costWarning(ex).replace("[viewgain] warning: ", ""));
         return b.toString();
@@ -229,7 +230,7 @@ public final class CheckReport {
                 + "Consider the default random-forest, or features.select\n";
     }
 
-    private static String describe(org.viewgain.cohort.View v) {
+    static String describe(org.viewgain.cohort.View v) {
         return (v.isGraph() ? "graph of " + v.regions() + " regions (" + v.baseNames().size() + " edges)"
                 : "table of " + v.baseNames().size() + " columns") + ", present for " + v.subjects().size()
                 + " subjects";

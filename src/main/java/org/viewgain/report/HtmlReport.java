@@ -71,6 +71,7 @@ public final class HtmlReport {
         b.append(CohortSection.html(d));
         b.append(ChartsSection.html(d));
         b.append(SeparationSection.html(d));
+        b.append(IndependentSection.html(d));
         b.append(ProtocolSection.html(d));
         b.append(CautionsSection.html(d));
         b.append("</main>\n<footer>Written by viewgain ").append(Html.esc(Provenance.toolVersion()))

@@ -60,6 +60,11 @@ public final class Provenance {
         return id;
     }
 
+    /** The SHA-256 of the spec text (what a bundle's provenance names). */
+    public String specSha256() {
+        return sha256(record.get("spec_text").toString());
+    }
+
     private static String sha256(String text) {
         try {
             return HexFormat.of().formatHex(MessageDigest.getInstance("SHA-256")

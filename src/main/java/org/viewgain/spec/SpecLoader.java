@@ -47,7 +47,8 @@ public final class SpecLoader {
         Path base = file.toAbsolutePath().getParent();
         Section top = new Section(root, "", problems);
         top.allowOnly(Set.of("experiment", "seed", "cohort", "views", "features", "imputers", "imputed-for-training",
-                "feature-sets", "classifiers", "validation", "significance", AvailabilityKeys.KEY));
+                "feature-sets", "classifiers", "validation", "significance", AvailabilityKeys.KEY,
+                IndependentKeys.KEY, "bundle"));
 
         String experiment = top.text("experiment", "experiment", true);
         if (experiment != null && !experiment.matches("[A-Za-z0-9][A-Za-z0-9._-]{0,79}")) {
@@ -73,6 +74,8 @@ public final class SpecLoader {
         Specs.Significance significance = significance(top.section("significance", false), sets, validation);
         FeatureSteps.checkScheme(features, validation, problems);
         AvailabilityCurve curve = AvailabilityKeys.read(top, sets, imputers, validation);
+        Specs.Independent independent = IndependentKeys.read(top, base);
+        boolean bundle = IndependentKeys.bundle(top);
 
         boolean defaultSets = !top.has("feature-sets");
         for (int i = 0; i < sets.size(); i++) {
@@ -92,7 +95,7 @@ public final class SpecLoader {
         }
         problems.throwIfAny();
         return new ExperimentSpec(experiment, seed, file, text, cohort, source, target, features, imputers, training,
-                sets, classifiers, validation, significance, parsed.where(), curve);
+                sets, classifiers, validation, significance, parsed.where(), curve, independent, bundle);
     }
 
     private static Specs.Cohort cohort(Section s, Path base) {

@@ -203,4 +203,23 @@ public final class Specs {
             return Specs.column(metric);
         }
     }
+
+    /**
+     * A cohort the frozen pipelines are applied to after cross-validation ({@code independent-cohort} in a run spec,
+     * the whole file of {@code viewgain apply}): its own subjects table and source view, optionally a target view,
+     * group labels and sites. Its regions (or a table's columns) must equal the development cohort's, in order.
+     *
+     * @param name    a short name for tables and the report
+     * @param group   the group column, or null when the cohort has no labels
+     * @param site    the site column, or null
+     * @param target  the target view, or null when the cohort never acquired it
+     * @param where   the key path of the section, for messages
+     */
+    public record Independent(String name, Path subjects, String id, String group, String site, View source,
+                              View target, String where) {
+        /** Whether group labels are given. */
+        public boolean labelled() {
+            return group != null;
+        }
+    }
 }

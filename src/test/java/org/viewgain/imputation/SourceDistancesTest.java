@@ -72,6 +72,13 @@ class SourceDistancesTest {
         SourceDistances table = SourceDistances.of(ids, trainable, views::get);
         assertNull(table.squared(List.of("s1"), List.of("s0"))); // s0 has no target: not a column
         assertNull(table.squared(List.of("elsewhere"), List.of("s1")));
+        Rows trainRows = new Rows(trainable.subList(0, 2), new double[][] {widen(trainable.get(0)),
+                widen(trainable.get(1))}, names(P));
+        double[] other = widen("s1");
+        other[7] += 1; // another cohort's subject with the same id
+        assertNull(table.squared(new Rows(List.of("s1"), new double[][] {other}, names(P)), trainRows));
+        assertEquals(1, table.squared(new Rows(List.of("s1"), new double[][] {widen("s1")}, names(P)),
+                trainRows).length);
         assertNull(SourceDistances.of(java.util.Collections.nCopies(6000, "x"),
                 java.util.Collections.nCopies(6000, "x"), views::get)); // 288 MB: above the budget
     }

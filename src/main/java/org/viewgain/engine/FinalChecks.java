@@ -1,0 +1,57 @@
+package org.viewgain.engine;
+
+import java.util.List;
+import org.viewgain.imputation.ExternalImputer;
+import org.viewgain.spec.ExperimentSpec;
+import org.viewgain.spec.IndependentKeys;
+import org.viewgain.spec.Problems;
+
+/**
+ * Before anything runs: a spec that asks for final pipelines (an independent cohort, or {@code bundle: true}) may
+ * use only steps and methods that can be frozen into a bundle, so that the independent cohort's predictions and a
+ * later {@code viewgain apply} come from the same parts.
+ */
+final class FinalChecks {
+    private FinalChecks() {
+    }
+
+    static void freezable(ExperimentSpec spec, List<Resolved.Imputer> imputers, List<Resolved.Classifier> classifiers,
+                          List<Pipeline> pipelines, Problems problems) {
+        if (!spec.finalPipelines()) {
+            return;
+        }
+        String why = spec.independent() != null ? IndependentKeys.KEY + " is given" : "bundle is true";
+        if (!spec.features().adjust().isEmpty()) {
+            problems.add("features.adjust", "covariate adjustment cannot be frozen into a bundle yet (" + why
+                    + "); remove features.adjust or the independent cohort");
+        }
+        if (spec.features().harmonize() != null) {
+            problems.add("features.harmonize", "ComBat is not frozen into bundles: a new cohort's sites have no"
+                    + " location and scale of their own in the development fit, and another site's would be wrong ("
+                    + why + "); remove features.harmonize or the independent cohort");
+        }
+        for (Resolved.Imputer imp : imputers) {
+            boolean used = pipelines.stream().anyMatch(p -> p.imputer().equals(imp.name()));
+            if (used && !imp.method().freezable()) {
+                String extra = ExternalImputer.METHOD.equals(imp.method().method())
+                        ? " (its imputations come from a file, which has no rows for new subjects)" : "";
+                problems.add(path(spec.imputers(), imp.name(), "imputers"), "imputer '" + imp.name() + "' (method "
+                        + imp.method().method() + ") cannot be frozen into a bundle" + extra + " (" + why
+                        + "); bundles hold mean, nearest-neighbours and ridge");
+            }
+        }
+        for (Resolved.Classifier c : classifiers) {
+            if (!c.method().freezable()) {
+                problems.add(path(spec.classifiers(), c.name(), "classifiers"), "classifier '" + c.name()
+                        + "' (method " + c.method().method() + ") cannot be frozen into a bundle (" + why
+                        + "); bundles hold random-forest, svm-linear and svm-rbf (Smile and Weka models exist only as"
+                        + " Java serialization, which a bundle never holds)");
+            }
+        }
+    }
+
+    private static String path(List<org.viewgain.spec.Specs.Method> methods, String name, String key) {
+        return methods.stream().filter(m -> m.name().equals(name)).map(org.viewgain.spec.Specs.Method::path)
+                .findFirst().orElse(key);
+    }
+}

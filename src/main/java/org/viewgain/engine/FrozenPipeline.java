@@ -1,0 +1,132 @@
+package org.viewgain.engine;
+
+import java.util.ArrayList;
+import java.util.List;
+import org.viewgain.classify.ClassifierMethod;
+import org.viewgain.classify.Predictions;
+import org.viewgain.cohort.Extractors;
+import org.viewgain.cohort.Rows;
+import org.viewgain.cohort.View;
+import org.viewgain.folds.FitContext;
+import org.viewgain.imputation.ViewImputer;
+import org.viewgain.prep.Transform;
+import org.viewgain.spec.FeatureSet;
+
+/**
+ * A final pipeline ready to apply to subjects it never saw: the imputer (null for feature sets without imputed
+ * features), the fitted steps and the classifier, with the development cohort's shape. Built from a run's final fit
+ * or read back from a bundle; both predict through this class, so their predictions agree bit for bit.
+ */
+public record FrozenPipeline(Pipeline pipeline, CohortShape shape, ViewImputer.Fitted imputer,
+                             List<Transform.Fitted> steps, ClassifierMethod.Model model) {
+    public FrozenPipeline {
+        steps = List.copyOf(steps);
+    }
+
+    /** One subject's prediction: position in the cohort, predicted class, positive score and scores per class. */
+    public record Prediction(int subject, int predicted, double score, double[] scores) {
+    }
+
+    /**
+     * The subjects of the cohort this pipeline applies to: everyone, or for feature sets with observed target
+     * features those with an observed target.
+     */
+    public int[] population(IndependentData d) {
+        return java.util.stream.IntStream.range(0, d.n())
+                .filter(i -> !pipeline.featureSet().needsObservedTarget() || d.hasTarget(i)).toArray();
+    }
+
+    /** Predicts every subject of its population, in cohort order. */
+    public List<Prediction> predict(IndependentData d) {
+        int[] who = population(d);
+        if (who.length == 0) {
+            return List.of();
+        }
+        Rows x = rows(d, who);
+        for (Transform.Fitted s : steps) {
+            x = s.apply(x);
+        }
+        Predictions pr = model.predict(x);
+        int positive = shape.groups().size() == 2 ? shape.groups().indexOf(shape.positive()) : -1;
+        List<Prediction> out = new ArrayList<>(who.length);
+        for (int t = 0; t < who.length; t++) {
+            double[] scores = pr.hasScores() ? pr.scores()[t] : null;
+            double score = scores == null ? Double.NaN : positive >= 0 ? scores[positive] : scores[pr.labels()[t]];
+            out.add(new Prediction(who[t], pr.labels()[t], score, scores));
+        }
+        return out;
+    }
+
+    /** The imputed target base vectors of the given subjects (null without an imputer), before rounding. */
+    public double[][] impute(IndependentData d, int[] who) {
+        if (imputer == null) {
+            return null;
+        }
+        double[][] base = new double[who.length][];
+        List<String> ids = new ArrayList<>(who.length);
+        for (int t = 0; t < who.length; t++) {
+            base[t] = d.source().base(d.id(who[t]));
+            ids.add(d.id(who[t]));
+        }
+        Rows src = new Rows(ids, base, d.source().baseNames());
+        return imputer.impute(new FitContext(0, ImputationStage.FINAL, ImputationStage.FINAL, FitContext.WHOLE,
+                FitContext.Role.FINAL, 0L), src);
+    }
+
+    /**
+     * Feature rows as the development run built them: source features, then imputed (rounded to single precision
+     * as every imputation the run keeps) or observed target features, each extracted as the development data were.
+     */
+    Rows rows(IndependentData d, int[] who) {
+        FeatureSet fs = pipeline.featureSet();
+        List<String> extract = shape.extract();
+        View targetShape = fs.needsImputer() ? shape.targetShape() : d.target();
+        double[][] imputed = fs.needsImputer() ? impute(d, who) : null;
+        double[][] x = new double[who.length][];
+        List<String> ids = new ArrayList<>(who.length);
+        List<String> names = null;
+        for (int t = 0; t < who.length; t++) {
+            int i = who[t];
+            ids.add(d.id(i));
+            List<double[]> parts = new ArrayList<>();
+            if (fs.usesSource()) {
+                parts.add(stored(extract, d.source(), d.source().base(d.id(i))));
+            }
+            if (fs.needsImputer()) {
+                double[] base = widen(ImputedFold.compact(imputed[t]));
+                parts.add(Extractors.apply(extract, targetShape, base));
+            } else if (fs != FeatureSet.SOURCE) {
+                parts.add(stored(extract, d.target(), d.target().base(d.id(i))));
+            }
+            int width = parts.stream().mapToInt(a -> a.length).sum();
+            double[] row = new double[width];
+            int at = 0;
+            for (double[] a : parts) {
+                System.arraycopy(a, 0, row, at, a.length);
+                at += a.length;
+            }
+            x[t] = row;
+        }
+        names = new ArrayList<>();
+        for (int c = 0; c < (x.length == 0 ? 0 : x[0].length); c++) {
+            names.add("f" + c);
+        }
+        return new Rows(ids, x, names);
+    }
+
+    /** Observed features as {@code DataLoader} keeps them: extracted, then held in single precision. */
+    private static double[] stored(List<String> extract, View view, double[] base) {
+        if (extract.equals(List.of(Extractors.EDGES))) {
+            return base; // already the widened single-precision values
+        }
+        return widen(ImputedFold.compact(Extractors.apply(extract, view, base)));
+    }
+
+    private static double[] widen(float[] f) {
+        double[] d = new double[f.length];
+        for (int c = 0; c < f.length; c++) {
+            d[c] = f[c];
+        }
+        return d;
+    }
+}

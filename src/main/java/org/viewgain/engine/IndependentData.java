@@ -1,0 +1,83 @@
+package org.viewgain.engine;
+
+import java.util.List;
+import org.viewgain.cohort.Subject;
+import org.viewgain.cohort.SubjectsTable;
+import org.viewgain.cohort.View;
+import org.viewgain.cohort.ViewLoader;
+import org.viewgain.spec.BadInputException;
+import org.viewgain.spec.Specs;
+
+/**
+ * A loaded independent cohort: subjects in file order, their class indices (null without labels), and the views,
+ * checked against the development cohort's shape (the same regions or columns, in the same order). Nothing of it
+ * is ever given to a fit: it only receives the frozen pipelines' predictions.
+ */
+public record IndependentData(Specs.Independent spec, List<Subject> subjects, int[] y, View source, View target) {
+    public IndependentData {
+        subjects = List.copyOf(subjects);
+    }
+
+    /**
+     * Loads the cohort and checks it against the development cohort's shape; a mismatch is one line naming the key,
+     * the view and the first region (or column) that differs.
+     */
+    public static IndependentData load(Specs.Independent spec, CohortShape dev) {
+        List<Subject> subjects = SubjectsTable.load(spec.subjects(), spec.id(), spec.group(), spec.site(), List.of(),
+                dev.groups());
+        List<String> ids = subjects.stream().map(Subject::id).toList();
+        View source = ViewLoader.load(spec.source(), ids);
+        String diff = CohortShape.difference(source, dev.sourceGraph(), dev.sourceNames());
+        if (diff != null) {
+            throw new BadInputException(key(spec, "views.source") + ": " + diff);
+        }
+        View target = null;
+        if (spec.target() != null) {
+            if (dev.targetNames().isEmpty()) {
+                throw new BadInputException(spec.where() + ".views.target: the development cohort has no target view"
+                        + " to compare it with; remove it");
+            }
+            target = ViewLoader.load(spec.target(), ids);
+            diff = CohortShape.difference(target, dev.targetGraph(), dev.targetNames());
+            if (diff != null) {
+                throw new BadInputException(key(spec, "views.target") + ": " + diff);
+            }
+        }
+        int[] y = null;
+        if (spec.labelled()) {
+            y = new int[subjects.size()];
+            for (int i = 0; i < y.length; i++) {
+                y[i] = dev.groups().indexOf(subjects.get(i).group());
+            }
+        }
+        return new IndependentData(spec, subjects, y, source, target);
+    }
+
+    /** A key of the cohort for messages: {@code independent-cohort.views.source}, or {@code FILE: views.source}. */
+    private static String key(Specs.Independent spec, String key) {
+        boolean file = spec.where().contains("/") || spec.where().contains("\\") || spec.where().contains(".");
+        return spec.where() + (file ? ": " : ".") + key;
+    }
+
+    public int n() {
+        return subjects.size();
+    }
+
+    public String id(int i) {
+        return subjects.get(i).id();
+    }
+
+    /** Whether subject {@code i} has an observed target. */
+    public boolean hasTarget(int i) {
+        return target != null && target.has(id(i));
+    }
+
+    /** How many subjects have an observed target. */
+    public int withTarget() {
+        int k = 0;
+        for (int i = 0; i < n(); i++) {
+            k += hasTarget(i) ? 1 : 0;
+        }
+        return k;
+    }
+}
