@@ -211,6 +211,7 @@ final class RunCommand implements Callable<Integer> {
             if (ex.independent() != null) {
                 org.viewgain.report.IndependentTables.write(folder, org.viewgain.engine.IndependentResults.of(
                         finals.pipelines(), ex.independent(), org.viewgain.engine.IndependentResults.Settings.of(ex)));
+                org.viewgain.report.IndependentTables.writeDuplicates(folder, ex);
             }
         }
         RunWriter.write(folder, results, prov, metrics);

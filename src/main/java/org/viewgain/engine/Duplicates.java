@@ -60,13 +60,52 @@ public final class Duplicates {
         return out;
     }
 
+    /**
+     * Pairs of one subject of {@code a} and one of {@code b} (two cohorts) with correlation strictly above
+     * {@code threshold}, computed as {@link #find} computes them; {@code Pair.a} indexes {@code a}, {@code Pair.b}
+     * indexes {@code b}; ordered by {@code a} then {@code b}. None when the vectors have fewer than
+     * {@link #MIN_FEATURES} entries.
+     */
+    public static List<Pair> across(double[][] a, double[][] b, double threshold) {
+        if (a.length == 0 || b.length == 0 || a[0].length < MIN_FEATURES) {
+            return List.of();
+        }
+        double[][] rows = new double[a.length + b.length][];
+        System.arraycopy(a, 0, rows, 0, a.length);
+        System.arraycopy(b, 0, rows, a.length, b.length);
+        float[][] z = new float[rows.length][];
+        boolean[] constant = new boolean[rows.length];
+        for (int i = 0; i < rows.length; i++) {
+            z[i] = unit(rows[i]);
+            constant[i] = z[i] == null;
+            if (constant[i]) {
+                z[i] = new float[rows[i].length];
+            }
+        }
+        int tiles = (a.length + TILE - 1) / TILE;
+        List<List<Pair>> perTile = IntStream.range(0, tiles).parallel()
+                .mapToObj(t -> tile(rows, z, constant, t * TILE, Math.min(a.length, t * TILE + TILE), a.length,
+                        threshold)).toList();
+        List<Pair> out = new ArrayList<>();
+        perTile.forEach(t -> t.forEach(p -> out.add(new Pair(p.a(), p.b() - a.length, p.correlation()))));
+        return out;
+    }
+
     /** Pairs whose first subject is in rows i0..i0+3, against every later subject, in (a, b) order. */
     private static List<Pair> tileRow(double[][] rows, float[][] z, boolean[] constant, int i0, double threshold) {
+        return tile(rows, z, constant, i0, Math.min(z.length, i0 + TILE), i0, threshold);
+    }
+
+    /**
+     * Pairs whose first subject is in rows i0..i1-1 (at most four) and whose second is a later row from
+     * {@code jStart} on, in (a, b) order.
+     */
+    private static List<Pair> tile(double[][] rows, float[][] z, boolean[] constant, int i0, int i1, int jStart,
+                                   double threshold) {
         int n = z.length;
-        int i1 = Math.min(n, i0 + TILE);
         double[][] dot = new double[TILE][TILE];
         List<Pair> found = new ArrayList<>();
-        for (int j0 = i0; j0 < n; j0 += TILE) {
+        for (int j0 = jStart; j0 < n; j0 += TILE) {
             int j1 = Math.min(n, j0 + TILE);
             for (double[] r : dot) {
                 java.util.Arrays.fill(r, 0);

@@ -10,12 +10,20 @@ import org.viewgain.spec.Specs;
 
 /**
  * A loaded independent cohort: subjects in file order, their class indices (null without labels), and the views,
- * checked against the development cohort's shape (the same regions or columns, in the same order). Nothing of it
- * is ever given to a fit: it only receives the frozen pipelines' predictions.
+ * checked against the development cohort's shape (the same regions or columns, in the same order), and the possible
+ * duplicate scans between the two cohorts ({@code Pair.a} a development subject's position, {@code Pair.b} this
+ * cohort's). Nothing of it is ever given to a fit: it only receives the frozen pipelines' predictions.
  */
-public record IndependentData(Specs.Independent spec, List<Subject> subjects, int[] y, View source, View target) {
+public record IndependentData(Specs.Independent spec, List<Subject> subjects, int[] y, View source, View target,
+                              List<Duplicates.Pair> duplicates) {
     public IndependentData {
         subjects = List.copyOf(subjects);
+        duplicates = List.copyOf(duplicates);
+    }
+
+    /** The same cohort with the possible duplicates of development subjects found by {@code Setup}. */
+    IndependentData withDuplicates(List<Duplicates.Pair> found) {
+        return new IndependentData(spec, subjects, y, source, target, found);
     }
 
     /**
@@ -50,7 +58,7 @@ public record IndependentData(Specs.Independent spec, List<Subject> subjects, in
                 y[i] = dev.groups().indexOf(subjects.get(i).group());
             }
         }
-        return new IndependentData(spec, subjects, y, source, target);
+        return new IndependentData(spec, subjects, y, source, target, List.of());
     }
 
     /** A key of the cohort for messages: {@code independent-cohort.views.source}, or {@code FILE: views.source}. */

@@ -8,6 +8,7 @@ import org.viewgain.cohort.Subject;
 import org.viewgain.folds.FitContext;
 import org.viewgain.folds.FoldPlan;
 import org.viewgain.prep.Standardize;
+import org.viewgain.prep.Transform;
 import org.viewgain.spec.BadInputException;
 import org.viewgain.spec.ExperimentSpec;
 import org.viewgain.spec.FeatureSet;
@@ -42,13 +43,15 @@ public final class Setup {
         Preprocessing prep = preprocessing(spec, data, methods, problems);
         problems.throwIfAny();
         double[][] base = data.subjects().stream().map(s -> data.source().base(s.id())).toArray(double[][]::new);
+        Transform.Fitted qcScale = null;
         if (!data.source().isGraph() && base.length > 0) {
             // A table's columns may be different measures in different units; on raw values the largest decides
             // every correlation (breast-cancer-wisconsin's ten mean_* columns: 95,853 of 161,596 pairs above 0.999).
             // Compare subjects on the pipeline's standardized scale, over everyone: a QC scan, nothing is trained.
             Rows rows = new Rows(data.subjects().stream().map(Subject::id).toList(), base, data.source().baseNames());
-            new Standardize().fit(new FitContext(0, 0, 0, FitContext.WHOLE, FitContext.Role.FINAL, 0L), rows,
-                    data.y()).applyInPlace(rows);
+            qcScale = new Standardize().fit(new FitContext(0, 0, 0, FitContext.WHOLE, FitContext.Role.FINAL, 0L),
+                    rows, data.y());
+            qcScale.applyInPlace(rows);
         }
         List<Duplicates.Pair> duplicates = Duplicates.find(base, spec.cohort().duplicateThreshold());
         FinalChecks.freezable(spec, imputers, classifiers, pipelines, problems);
@@ -58,6 +61,8 @@ public final class Setup {
             Experiment dev = new Experiment(spec, data, plan, imputers, classifiers, pipelines,
                     methods.scaler(spec.features().scale()), prep, duplicates);
             independent = IndependentData.load(spec.independent(), CohortShape.of(dev));
+            independent = independent.withDuplicates(acrossCohorts(base, independent, qcScale,
+                    spec.cohort().duplicateThreshold()));
         }
         Experiment ex = new Experiment(spec, data, plan, imputers, classifiers, pipelines,
                 methods.scaler(spec.features().scale()), prep, duplicates, independent);
@@ -245,5 +250,21 @@ public final class Setup {
                 }
             }
         }
+    }
+
+    /**
+     * Possible duplicate scans between the development cohort ({@code devBase}, already on the QC scale) and the
+     * independent cohort: the same person in both makes the independent result optimistic. A table's columns are put
+     * on the development cohort's QC scale ({@code qcScale}, fitted on development subjects) first; a QC scan, nothing
+     * is trained.
+     */
+    static List<Duplicates.Pair> acrossCohorts(double[][] devBase, IndependentData ind, Transform.Fitted qcScale,
+                                               double threshold) {
+        double[][] other = ind.subjects().stream().map(s -> ind.source().base(s.id())).toArray(double[][]::new);
+        if (qcScale != null && other.length > 0) {
+            qcScale.applyInPlace(new Rows(ind.subjects().stream().map(Subject::id).toList(), other,
+                    ind.source().baseNames()));
+        }
+        return Duplicates.across(devBase, other, threshold);
     }
 }

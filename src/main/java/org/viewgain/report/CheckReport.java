@@ -147,9 +147,14 @@ public final class CheckReport {
         return b.toString();
     }
 
-    /** The warning a run prints to stderr before it starts; empty when there are no possible duplicates. */
+    /**
+     * The warning a run prints to stderr before it starts, within the development cohort and between it and the
+     * independent cohort; empty when there are no possible duplicates.
+     */
     public static String duplicateWarning(Experiment ex) {
-        return ex.duplicates().isEmpty() ? "" : "[viewgain] warning: " + duplicates(ex, 5);
+        String within = ex.duplicates().isEmpty() ? "" : "[viewgain] warning: " + duplicates(ex, 5);
+        boolean across = ex.independent() != null && !ex.independent().duplicates().isEmpty();
+        return within + (across ? "[viewgain] warning: " + IndependentText.duplicates(ex, 5) : "");
     }
 
     /**

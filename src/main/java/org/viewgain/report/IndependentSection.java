@@ -27,6 +27,13 @@ final class IndependentSection {
                 + "independent cohort <strong>").append(Html.esc(cohort)).append("</strong>, which no fit saw. Its "
                 + "paired comparisons use DeLong's test for AUC and the exact McNemar test on the same subjects; the "
                 + "corrected repeated-CV t-test does not apply to a single test set.</p>\n");
+        CsvRows dup = CsvRows.readIfPresent(d.dir, "external_duplicates.csv");
+        if (dup != null && !dup.rows().isEmpty()) {
+            b.append("<p class=\"warn\"><strong>Possible duplicates:</strong> ").append(dup.rows().size())
+                    .append(" independent subject(s) have a source view that correlates above the duplicate threshold"
+                            + " with a development subject's (external_duplicates.csv). If they are the same people,"
+                            + " the independent cohort is not independent and its results are optimistic.</p>\n");
+        }
         if (ext == null) {
             b.append("<p>The cohort has no labels: predictions only (external_predictions.csv).</p>\n");
             return b.append("</section>\n").toString();

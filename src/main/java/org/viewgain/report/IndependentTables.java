@@ -2,13 +2,17 @@ package org.viewgain.report;
 
 import java.io.IOException;
 import org.viewgain.engine.Bundle;
+import org.viewgain.engine.Duplicates;
+import org.viewgain.engine.Experiment;
+import org.viewgain.engine.IndependentData;
 import org.viewgain.engine.FinalPipelines;
 import org.viewgain.engine.IndependentResults;
 
 /**
  * The outputs of final pipelines: {@code bundle/}, {@code final_pipelines.csv}, and for an independent cohort
  * {@code external_predictions.csv}, {@code external_metrics.csv} (labels given), {@code external_comparisons.csv}
- * (labels given, source+imputed and source both run) and {@code external_imputation.csv} (some targets observed).
+ * (labels given, source+imputed and source both run), {@code external_imputation.csv} (some targets observed) and
+ * {@code external_duplicates.csv}.
  * Columns are documented in docs/report.md.
  */
 public final class IndependentTables {
@@ -26,6 +30,19 @@ public final class IndependentTables {
                     .text(f.imputerChoices().getOrDefault(p.imputer(), ""));
         }
         folder.write("final_pipelines.csv", t);
+    }
+
+    /**
+     * Writes {@code external_duplicates.csv}: pairs of an independent and a development subject whose source views
+     * correlate above {@code cohort.duplicate-threshold} (header only when there are none).
+     */
+    public static void writeDuplicates(RunFolder folder, Experiment ex) throws IOException {
+        IndependentData ind = ex.independent();
+        CsvTable t = new CsvTable("cohort", "independent_subject", "development_subject", "correlation");
+        for (Duplicates.Pair d : ind.duplicates()) {
+            t.row().text(ind.spec().name()).text(ind.id(d.b())).text(ex.data().id(d.a())).number(d.correlation());
+        }
+        folder.write("external_duplicates.csv", t);
     }
 
     /** Writes the independent cohort's tables into {@code folder}. */

@@ -50,6 +50,37 @@ final class IndependentText {
         if (ind.target() != null) {
             b.append("  target: ").append(CheckReport.describe(ind.target())).append('\n');
         }
+        b.append("  ").append(duplicates(ex, 5));
+        return b.toString();
+    }
+
+    /**
+     * Possible duplicate scans between the cohorts, at most {@code limit} listed; one line when there are none, empty
+     * without an independent cohort.
+     */
+    static String duplicates(Experiment ex, int limit) {
+        IndependentData ind = ex.independent();
+        if (ind == null) {
+            return "";
+        }
+        double threshold = ex.spec().cohort().duplicateThreshold();
+        if (ind.duplicates().isEmpty()) {
+            return "possible duplicates of development subjects: none (no source view correlates above " + threshold
+                    + " with a development subject's)\n";
+        }
+        StringBuilder b = new StringBuilder("possible duplicates of development subjects: ")
+                .append(ind.duplicates().size()).append(" pair(s) whose source views correlate above ")
+                .append(threshold).append("; a development subject in the independent cohort makes its result"
+                        + " optimistic\n");
+        for (int k = 0; k < Math.min(limit, ind.duplicates().size()); k++) {
+            var d = ind.duplicates().get(k);
+            b.append(String.format(java.util.Locale.ROOT, "    %s (independent) ~ %s (development) (r = %.6f)%n",
+                    ind.id(d.b()), ex.data().id(d.a()), d.correlation()));
+        }
+        if (ind.duplicates().size() > limit) {
+            b.append("    ... and ").append(ind.duplicates().size() - limit)
+                    .append(" more (all are listed in external_duplicates.csv)\n");
+        }
         return b.toString();
     }
 }

@@ -202,4 +202,28 @@ class IndependentCohortTest {
             }
         }
     }
+
+    @Test
+    void givenAnIndependentSubjectWhoIsADevelopmentSubject_whenCheckedAndRun_thenWarnedAndListed() throws IOException {
+        Path spec = cohorts(2.0, 60, 30);
+        // the independent cohort's first subject is a development subject's scan under another id
+        Path devFile = dir.resolve("dev/views/thickness/d00001.csv");
+        Path extFile = dir.resolve("ext/views/thickness/e00001.csv");
+        assertTrue(Files.isRegularFile(devFile) && Files.isRegularFile(extFile), "ScaleCohort's file names");
+        Files.copy(devFile, extFile, java.nio.file.StandardCopyOption.REPLACE_EXISTING);
+        CliTest.Outcome check = CliTest.run(new String[] {"check", spec.toString()});
+        assertEquals(0, check.code(), check.err());
+        assertTrue(check.out().contains("possible duplicates of development subjects: 1 pair(s)"), check.out());
+        assertTrue(check.out().contains("e00001 (independent) ~ d00001 (development) (r = 1.000000)"), check.out());
+        CliTest.Outcome o = CliTest.run(new String[] {"run", spec.toString(), "--out", dir.resolve("dup").toString(),
+            "--quiet"});
+        assertEquals(0, o.code(), o.err());
+        assertTrue(o.err().contains("warning: possible duplicates of development subjects"), o.err());
+        Path run = RunTables.only(dir.resolve("dup"), "indep");
+        List<String> rows = Files.readAllLines(run.resolve("external_duplicates.csv"));
+        assertEquals("cohort,independent_subject,development_subject,correlation", rows.get(0));
+        assertEquals(2, rows.size(), rows.toString());
+        assertTrue(rows.get(1).startsWith("later-clinic,e00001,d00001,"), rows.toString());
+        assertTrue(Files.readString(run.resolve("report.html")).contains("Possible duplicates:"));
+    }
 }

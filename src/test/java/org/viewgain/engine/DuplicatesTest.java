@@ -76,4 +76,28 @@ class DuplicatesTest {
         assertEquals(List.of(1, 400), List.of(found.get(0).a(), found.get(0).b()));
         assertEquals(new PearsonsCorrelation().correlation(x[1], x[400]), found.get(0).correlation(), 1e-12);
     }
+
+    @Test
+    void givenTwoCohortsWithPlantedCopies_whenSearchedAcross_thenExactlyThoseCrossPairsWithCommonsMathCorrelations() {
+        // 37 development rows (ragged last tile) and 23 independent rows; the copies sit across the cohorts, and a
+        // copy within one cohort (dev 5 ~ dev 30) must not be reported by the cross search
+        double[][] dev = noise(37, 700, 12);
+        double[][] ind = noise(23, 700, 13);
+        SplittableRandom rng = new SplittableRandom(14);
+        for (int j = 0; j < 700; j++) {
+            ind[22][j] = 3 * dev[36][j] - 1;                          // affine copy in the last tiles: r = 1
+            ind[4][j] = dev[2][j] + 0.01 * rng.nextGaussian();       // rescan
+            dev[30][j] = dev[5][j];                                  // within the development cohort only
+        }
+        List<Duplicates.Pair> found = Duplicates.across(dev, ind, 0.999);
+        assertEquals(2, found.size(), found.toString());
+        assertEquals(List.of(2, 4), List.of(found.get(0).a(), found.get(0).b()));
+        assertEquals(List.of(36, 22), List.of(found.get(1).a(), found.get(1).b()));
+        // reference library: Apache Commons Math 3.6.1 PearsonsCorrelation; tolerance 1e-12 (rounding only)
+        PearsonsCorrelation pc = new PearsonsCorrelation();
+        for (Duplicates.Pair d : found) {
+            assertEquals(pc.correlation(dev[d.a()], ind[d.b()]), d.correlation(), 1e-12);
+        }
+        assertEquals(List.of(), Duplicates.across(dev, new double[0][], 0.999));
+    }
 }
