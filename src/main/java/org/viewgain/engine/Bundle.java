@@ -206,8 +206,16 @@ public final class Bundle {
         JsonNode iv = m.get("intervals");
         Specs.Significance sig = new Specs.Significance(0, 0, "balanced-accuracy", 0.05, List.of(), "none", 0.01,
                 iv.get("bootstrap").asInt(), iv.get("confidence").asDouble());
+        // calibration applies to classifiers whose scores are probabilities, as their method says
+        java.util.Set<String> probability = new java.util.TreeSet<>();
+        for (JsonNode p : m.get("pipelines")) {
+            if ("probability".equals(org.viewgain.classify.ClassifierRegistry.create(p.get("classifier_method")
+                    .asText(), null, null).scoreKind())) {
+                probability.add(p.get("classifier").asText());
+            }
+        }
         return new Loaded(shape, out, new IndependentResults.Settings(shape.groups(), shape.positive(), sig,
-                m.get("seed").asLong()), m);
+                m.get("seed").asLong(), probability), m);
     }
 
     private static byte[] part(Map<String, byte[]> parts, String name) {

@@ -82,13 +82,49 @@ final class CalibrationMetrics {
         return out;
     }
 
+    /**
+     * The three rows of one pipeline on an independent cohort (one test set, every subject once): the values on its
+     * predictions and the subject-level stratified bootstrap intervals, seeded as its other metrics' are; blank rows
+     * when {@code probability} is null (decision values, labels only, three or more groups).
+     *
+     * @param truth       each subject's class index
+     * @param probability each subject's probability of the positive group, or null
+     */
+    static List<IndependentResults.Metric> external(Pipeline p, int[] truth, double[] probability,
+                                                    IndependentResults.Settings s, int n) {
+        List<IndependentResults.Metric> out = new ArrayList<>();
+        if (probability == null) {
+            NAMES.forEach(m -> out.add(new IndependentResults.Metric(p, m, Double.NaN, Double.NaN, Double.NaN, "",
+                    n)));
+            return out;
+        }
+        int positive = s.positiveIndex();
+        double[] v = values(Calibration.of(positives(truth, positive), probability));
+        List<Interval> ci = intervals(s.significance(), truth, new double[][] {probability}, positive,
+                Seeds.derive(s.seed(), "bootstrap", "independent/" + p.label(), "calibration"));
+        for (int k = 0; k < NAMES.size(); k++) {
+            Interval c = Double.isNaN(v[k]) ? Interval.undefined() : ci.get(k);
+            out.add(new IndependentResults.Metric(p, NAMES.get(k), v[k], c.isDefined() ? c.low() : Double.NaN,
+                    c.isDefined() ? c.high() : Double.NaN, c.isDefined() ? "bootstrap" : "", n));
+        }
+        return out;
+    }
+
     /** The three intervals from one set of resamples; undefined for a value that any resample leaves undefined. */
     private static List<Interval> bootstrap(Experiment ex, Pipeline p, int[] truth, double[][] score, int positive) {
-        Specs.Significance sig = ex.spec().significance();
+        return intervals(ex.spec().significance(), truth, score, positive,
+                Seeds.derive(ex.spec().seed(), "bootstrap", p.label(), "calibration"));
+    }
+
+    /**
+     * The three intervals of the mean over the rows of {@code score} (one row per repeat, or one row for a single
+     * test set) from one set of stratified subject-level resamples.
+     */
+    private static List<Interval> intervals(Specs.Significance sig, int[] truth, double[][] score, int positive,
+                                            long seed) {
         if (sig.bootstrap() == 0) {
             return java.util.Collections.nCopies(NAMES.size(), Interval.undefined());
         }
-        long seed = Seeds.derive(ex.spec().seed(), "bootstrap", p.label(), "calibration");
         int[] undefined = new int[NAMES.size()];
         List<Interval> ci = Bootstrap.percentiles(truth, units -> {
             boolean[] pos = new boolean[units.length];

@@ -81,7 +81,10 @@ public record Experiment(ExperimentSpec spec, StudyData data, FoldPlan plan, Lis
         return (crossFit || i.grid().size() > 1 ? (long) i.grid().size() * k : 0) + 1;
     }
 
-    /** How many model fits (imputers and classifiers, tuning included) the run will do. */
+    /**
+     * How many model fits (imputers and classifiers, tuning included) the run will do, the final pipelines' (one
+     * more outer fold's work, on every development subject) included.
+     */
     public long modelFits() {
         int k = spec.validation().innerFolds();
         boolean crossFit = spec.imputedForTraining() == org.viewgain.spec.Specs.TrainingImputation.CROSS_FITTED;
@@ -103,6 +106,7 @@ public record Experiment(ExperimentSpec spec, StudyData data, FoldPlan plan, Lis
         for (int r = 0; r < plan.repeats(); r++) {
             folds += plan.folds(r);
         }
-        return perFold * folds;
+        // the final pipelines repeat one outer fold's work on the whole development cohort
+        return perFold * (folds + (spec.finalPipelines() ? 1 : 0));
     }
 }

@@ -14,7 +14,8 @@ import org.viewgain.stats.McNemar;
 /**
  * What the frozen pipelines give on an independent cohort: every subject's prediction; with labels, the metrics
  * with intervals and the paired comparisons of source+imputed against source (DeLong for AUC, exact McNemar for
- * correctness, on the same subjects); where some targets were observed, imputation quality. The corrected
+ * correctness, on the same subjects) and, for probabilities of two groups, calibration (Brier score, calibration
+ * intercept and slope); where some targets were observed, imputation quality. The corrected
  * repeated-CV t-test does not apply: one test set has no folds to vary over.
  */
 public record IndependentResults(String cohort, List<Row> predictions, List<Metric> metrics,
@@ -26,11 +27,23 @@ public record IndependentResults(String cohort, List<Row> predictions, List<Metr
         quality = List.copyOf(quality);
     }
 
-    /** The settings the results need: groups, intervals and the seed of the bootstrap. */
-    public record Settings(List<String> groups, String positive, Specs.Significance significance, long seed) {
+    /**
+     * The settings the results need: groups, intervals, the seed of the bootstrap, and the classifiers (by name)
+     * whose scores are probabilities, which the calibration rows apply to.
+     */
+    public record Settings(List<String> groups, String positive, Specs.Significance significance, long seed,
+                           java.util.Set<String> probabilityClassifiers) {
+        public Settings {
+            groups = List.copyOf(groups);
+            probabilityClassifiers = java.util.Set.copyOf(probabilityClassifiers);
+        }
+
         public static Settings of(Experiment ex) {
+            java.util.Set<String> probability = new java.util.TreeSet<>();
+            ex.classifiers().stream().filter(c -> "probability".equals(c.method().scoreKind()))
+                    .forEach(c -> probability.add(c.name()));
             return new Settings(ex.spec().cohort().groups(), ex.spec().cohort().positive(),
-                    ex.spec().significance(), ex.spec().seed());
+                    ex.spec().significance(), ex.spec().seed(), probability);
         }
 
         int positiveIndex() {
@@ -116,6 +129,12 @@ public record IndependentResults(String cohort, List<Row> predictions, List<Metr
             MetricIntervals.Ci c = ci.get(m);
             out.add(new Metric(p, m, est.get(m), c.low(), c.high(), c.method(), n));
         }
+        boolean probability = classes == 2 && scores != null && s.probabilityClassifiers().contains(p.classifier());
+        double[] pos = new double[n];
+        for (int t = 0; t < n && probability; t++) {
+            pos[t] = scores[t][s.positiveIndex()];
+        }
+        out.addAll(CalibrationMetrics.external(p, truth, probability ? pos : null, s, n));
         return out;
     }
 

@@ -67,6 +67,7 @@ final class IndependentSection {
             }
             b.append(Html.table("independent-comparisons", List.of("comparison", "test", "estimates", "p"), c));
         }
+        b.append(ReliabilityCharts.external(d, preds, ext, cohort));
         return b.append("</section>\n").toString();
     }
 

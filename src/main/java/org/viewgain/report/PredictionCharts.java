@@ -42,9 +42,13 @@ final class PredictionCharts {
 
     /** Pipelines grouped by classifier; a pipeline without scores is left out. */
     static Map<String, Map<String, Pooled>> pool(ReportData d) {
+        return pool(d.predictions, d.positive());
+    }
+
+    /** The same for any table of predictions with imputer, feature_set, classifier, truth and score columns. */
+    static Map<String, Map<String, Pooled>> pool(CsvRows predictions, String positive) {
         Map<String, Map<String, Pooled>> out = new LinkedHashMap<>();
-        String positive = d.positive();
-        for (CsvRows.Row r : d.predictions.rows()) {
+        for (CsvRows.Row r : predictions.rows()) {
             double s = r.d("score");
             if (Double.isNaN(s)) {
                 continue;

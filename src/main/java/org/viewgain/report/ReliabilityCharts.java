@@ -92,6 +92,68 @@ final class ReliabilityCharts {
         return b.toString();
     }
 
+    /**
+     * The calibration part of the independent-cohort section: per classifier whose external_metrics.csv rows have a
+     * Brier score (probabilities of two groups), a reliability diagram of its predictions on the independent cohort
+     * and a table of Brier score, calibration intercept and slope there beside the cross-validated values; a line
+     * saying why for the others. Empty when the table has no calibration rows (older runs).
+     */
+    static String external(ReportData d, CsvRows preds, CsvRows ext, String cohort) {
+        if (ext.rows().stream().noneMatch(r -> r.s("metric").equals("brier"))) {
+            return "";
+        }
+        List<String> calibrated = ext.rows().stream().filter(r -> r.s("metric").equals("brier")
+                && !Double.isNaN(r.d("estimate"))).map(r -> r.s("classifier")).distinct().toList();
+        Map<String, Map<String, PredictionCharts.Pooled>> pooled = PredictionCharts.pool(preds, d.positive());
+        StringBuilder b = new StringBuilder("<h3>Calibration on the independent cohort</h3>\n<div class=\"grid\">");
+        for (String c : calibrated) {
+            Map<String, PredictionCharts.Pooled> drawn = drawn(pooled.getOrDefault(c, Map.of()));
+            if (drawn.isEmpty()) {
+                continue;
+            }
+            b.append(Charts.figure(() -> chart(drawn), 480, 420, "Reliability of " + c + " on " + cohort + ": the "
+                    + "final pipelines' probabilities of group " + d.positive() + ", one per subject, in " + BINS
+                    + " equal-width bins of [0, 1]; each point is a bin's mean predicted probability against the "
+                    + "observed fraction in group " + d.positive() + ", empty bins left out. On the dashed diagonal "
+                    + "the predictions are calibrated for this cohort; a shift of prevalence or of the scanner between "
+                    + "the cohorts shows here as a curve off the diagonal.", d.redact));
+        }
+        b.append("</div>\n");
+        Map<String, String> cv = new java.util.HashMap<>();
+        if (d.metrics != null) {
+            d.metrics.rows().forEach(r -> cv.put(Names.key(r) + "|" + r.s("metric"), r.s("estimate")));
+        }
+        List<List<String>> rows = new ArrayList<>();
+        Map<String, Map<String, CsvRows.Row>> by = new LinkedHashMap<>();
+        for (CsvRows.Row r : ext.rows()) {
+            if (METRICS.contains(r.s("metric")) && calibrated.contains(r.s("classifier"))) {
+                by.computeIfAbsent(Names.key(r), k -> new LinkedHashMap<>()).put(r.s("metric"), r);
+            }
+        }
+        by.forEach((key, m) -> {
+            CsvRows.Row any = m.values().iterator().next();
+            List<String> cells = new ArrayList<>(List.of(Html.esc(Names.pipeline(any.s("imputer"),
+                    any.s("feature_set"), any.s("classifier"))), Html.esc(any.s("n"))));
+            for (String metric : METRICS) {
+                CsvRows.Row r = m.get(metric);
+                String inCv = cv.get(key + "|" + metric);
+                cells.add(r == null || Double.isNaN(r.d("estimate")) ? "\u2013"
+                        : Html.esc(Html.f3(r.d("estimate"))) + "<br>" + MetricPairs.interval(r, "", ""));
+                cells.add(inCv == null || inCv.isEmpty() ? "\u2013" : Html.esc(Html.f3(Double.parseDouble(inCv))));
+            }
+            rows.add(cells);
+        });
+        b.append(Html.table("independent-calibration", List.of("pipeline", "n", "Brier score", "cross-validated",
+                "calibration intercept", "cross-validated", "calibration slope", "cross-validated"), rows));
+        List<String> blank = ext.rows().stream().filter(r -> r.s("metric").equals("brier")
+                && Double.isNaN(r.d("estimate"))).map(r -> r.s("classifier")).distinct().toList();
+        if (!blank.isEmpty()) {
+            b.append("<p class=\"absent\">No calibration for ").append(Html.esc(String.join(", ", blank)))
+                    .append(": its scores are decision values or labels, not probabilities.</p>\n");
+        }
+        return b.toString();
+    }
+
     /** The source and source+imputed pipelines when the run has source+imputed; otherwise all of them. */
     private static Map<String, PredictionCharts.Pooled> drawn(Map<String, PredictionCharts.Pooled> pipes) {
         Map<String, PredictionCharts.Pooled> out = new LinkedHashMap<>();

@@ -121,4 +121,31 @@ class CalibrationMetricsTest {
         return rows.stream().filter(r -> r.pipeline().equals(p) && r.metric().equals(metric)).findFirst()
                 .orElseThrow();
     }
+
+    @Test
+    void givenOneTestSet_whenExternalRows_thenHandBrierAndStatsmodelsRecalibration() {
+        // an independent cohort is one test set: the values on its predictions, not a mean over repeats. Brier by
+        // hand: 0.1475. Intercept (outcome on logit(p) as offset) and slope (outcome on logit(p)): statsmodels 0.15.0
+        // GLM Binomial fitted to tol 1e-12 on these 12 predictions gave -0.316486312348 and 1.712488455111
+        double[] prob = {0.9, 0.8, 0.7, 0.65, 0.4, 0.35, 0.3, 0.2, 0.15, 0.6, 0.55, 0.1};
+        int[] truth = {1, 1, 0, 1, 1, 0, 0, 0, 0, 1, 0, 0};
+        Pipeline p = new Pipeline("ridge", org.viewgain.spec.FeatureSet.SOURCE_IMPUTED, "forest");
+        IndependentResults.Settings s = new IndependentResults.Settings(List.of("control", "patient"), "patient",
+                new org.viewgain.spec.Specs.Significance(0, 0, "balanced-accuracy", 0.05, List.of(), "none", 0.01,
+                        300, 0.95), 7L, java.util.Set.of("forest"));
+        List<IndependentResults.Metric> rows = CalibrationMetrics.external(p, truth, prob, s, 12);
+        assertEquals(CalibrationMetrics.NAMES, rows.stream().map(IndependentResults.Metric::metric).toList());
+        assertEquals(0.1475, rows.get(0).estimate(), 1e-12);
+        assertEquals(-0.316486312348, rows.get(1).estimate(), 1e-8);
+        assertEquals(1.712488455111, rows.get(2).estimate(), 1e-8);
+        IndependentResults.Metric brier = rows.get(0);
+        assertEquals("bootstrap", brier.method());
+        assertTrue(brier.low() < 0.1475 && 0.1475 < brier.high(), brier.toString());
+        // the same bootstrap seed gives the same interval
+        assertEquals(brier, CalibrationMetrics.external(p, truth, prob, s, 12).get(0));
+        // decision values (or labels only): the rows are there, blank
+        for (IndependentResults.Metric m : CalibrationMetrics.external(p, truth, null, s, 12)) {
+            assertTrue(Double.isNaN(m.estimate()) && m.method().isEmpty(), m.toString());
+        }
+    }
 }

@@ -72,4 +72,21 @@ class ProgressCountTest {
         assertEquals(share, seen.last()[0]);
         assertEquals(share, seen.last()[1]);
     }
+
+    @Test
+    void givenFinalPipelines_whenCountingModelFits_thenOneMoreOuterFoldOfWork() {
+        TestCohorts.synthetic(dir, 30, 5, 4, 0.5, 0.2, 9);
+        String body = """
+                imputers: [ { name: ridge, method: ridge, grid: { alpha: [1, 10] } } ]
+                feature-sets: [source, source+imputed]
+                classifiers: [ { name: lin, method: svm-linear, grid: { C: [0.1, 1] } } ]
+                validation: { outer: { folds: 3, repeats: 1 }, inner: { folds: 2 } }
+                """;
+        long cv = Setup.prepare(SpecLoader.load(TestCohorts.spec(dir, body))).modelFits();
+        long withFinal = Setup.prepare(SpecLoader.load(TestCohorts.spec(dir, body + "bundle: true\n"))).modelFits();
+        // per outer fold: ridge 2 x 2 tuning + 1 final; each pipeline 2 x 2 tuning + 1 final fit, and source+imputed's
+        // nested imputations 2 x (2 x 2 + 1): 5 + 5 + 5 + 10 = 25 per fold, 3 folds, then the final pipelines
+        assertEquals(75, cv);
+        assertEquals(100, withFinal);
+    }
 }
