@@ -100,12 +100,20 @@ public final class StudyData {
 
     private org.viewgain.imputation.SourceDistances distances;
     private boolean distancesMade;
+    /** The data whose distance table this one shares (itself, or the data it hid targets of). */
+    private StudyData distanceOwner = this;
 
     /**
      * The run's table of label-free distances between source views (every subject against those with an observed
      * target), made on first use and shared by every imputer fit; null without a target view or above its budget.
+     * Data with hidden targets (an availability level) shares its origin's table: the source views are the same,
+     * and its subjects with a target are among the origin's.
      */
-    public synchronized org.viewgain.imputation.SourceDistances sourceDistances() {
+    public org.viewgain.imputation.SourceDistances sourceDistances() {
+        return distanceOwner.ownDistances();
+    }
+
+    private synchronized org.viewgain.imputation.SourceDistances ownDistances() {
         if (!distancesMade) {
             distancesMade = true;
             if (target != null) {
@@ -176,7 +184,9 @@ public final class StudyData {
         if (kept != null) {
             hidden.stream().forEach(i -> kept[i] = null);
         }
-        return new StudyData(subjects, y, source, target, sourceFeatures, kept, sourceNames, targetNames);
+        StudyData out = new StudyData(subjects, y, source, target, sourceFeatures, kept, sourceNames, targetNames);
+        out.distanceOwner = distanceOwner;
+        return out;
     }
 
     /** Subject {@code i}'s source features as stored (shared; for checks of the storage, never written). */

@@ -199,4 +199,20 @@ class AvailabilityTest {
         assertTrue(small.getMessage().contains("availability-curve.fractions[0]: 0.05 keeps 1 of the"),
                 small.getMessage());
     }
+
+    @Test
+    void givenALevelWithHiddenTargets_whenItsDistanceTableIsAsked_thenTheRunsOwnTableIsShared() {
+        // the label-free source distances do not change when targets are hidden, and a level's subjects with a
+        // target are among the run's: one table per run, not one per level and outer fold
+        TestCohorts.synthetic(dir, 80, 6, 5, 1.0, 0.25, 3);
+        Experiment ex = prepare(dir, BODY);
+        var table = ex.data().sourceDistances();
+        assertTrue(table != null, "a run with a target view has a table");
+        int[] keep = Availability.subset(ex, 0, 0, 0);
+        Experiment level = Availability.masked(ex, 0, 0, keep);
+        long before = java.util.stream.IntStream.range(0, ex.data().n()).filter(ex.data()::hasTarget).count();
+        long after = java.util.stream.IntStream.range(0, ex.data().n()).filter(level.data()::hasTarget).count();
+        assertTrue(after < before, "the level hides targets");
+        org.junit.jupiter.api.Assertions.assertSame(table, level.data().sourceDistances());
+    }
 }
