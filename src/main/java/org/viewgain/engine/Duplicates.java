@@ -22,7 +22,10 @@ public final class Duplicates {
     private Duplicates() {
     }
 
-    /** Two subjects (positions, {@code a < b}) and the correlation of their vectors. */
+    /**
+     * Two subjects and the correlation of their vectors: positions {@code a < b} in one cohort ({@link #find}), or a
+     * position in each of two cohorts ({@link #across}).
+     */
     public record Pair(int a, int b, double correlation) {
     }
 
@@ -43,18 +46,12 @@ public final class Duplicates {
         if (n < 2 || rows[0].length < MIN_FEATURES) {
             return List.of();
         }
-        float[][] z = new float[n][];
         boolean[] constant = new boolean[n];
-        for (int i = 0; i < n; i++) {
-            z[i] = unit(rows[i]);
-            constant[i] = z[i] == null;
-            if (constant[i]) {
-                z[i] = new float[rows[i].length];
-            }
-        }
+        float[][] z = units(rows, constant);
         int tiles = (n + TILE - 1) / TILE;
         List<List<Pair>> perTile = IntStream.range(0, tiles).parallel()
-                .mapToObj(t -> tileRow(rows, z, constant, t * TILE, threshold)).toList();
+                .mapToObj(t -> tile(rows, z, constant, t * TILE, Math.min(n, t * TILE + TILE), t * TILE,
+                        threshold)).toList();
         List<Pair> out = new ArrayList<>();
         perTile.forEach(out::addAll);
         return out;
@@ -73,15 +70,8 @@ public final class Duplicates {
         double[][] rows = new double[a.length + b.length][];
         System.arraycopy(a, 0, rows, 0, a.length);
         System.arraycopy(b, 0, rows, a.length, b.length);
-        float[][] z = new float[rows.length][];
         boolean[] constant = new boolean[rows.length];
-        for (int i = 0; i < rows.length; i++) {
-            z[i] = unit(rows[i]);
-            constant[i] = z[i] == null;
-            if (constant[i]) {
-                z[i] = new float[rows[i].length];
-            }
-        }
+        float[][] z = units(rows, constant);
         int tiles = (a.length + TILE - 1) / TILE;
         List<List<Pair>> perTile = IntStream.range(0, tiles).parallel()
                 .mapToObj(t -> tile(rows, z, constant, t * TILE, Math.min(a.length, t * TILE + TILE), a.length,
@@ -91,9 +81,17 @@ public final class Duplicates {
         return out;
     }
 
-    /** Pairs whose first subject is in rows i0..i0+3, against every later subject, in (a, b) order. */
-    private static List<Pair> tileRow(double[][] rows, float[][] z, boolean[] constant, int i0, double threshold) {
-        return tile(rows, z, constant, i0, Math.min(z.length, i0 + TILE), i0, threshold);
+    /** Every row centred and scaled to unit length as floats; a constant row is marked and left all zero. */
+    private static float[][] units(double[][] rows, boolean[] constant) {
+        float[][] z = new float[rows.length][];
+        for (int i = 0; i < rows.length; i++) {
+            z[i] = unit(rows[i]);
+            constant[i] = z[i] == null;
+            if (constant[i]) {
+                z[i] = new float[rows[i].length];
+            }
+        }
+        return z;
     }
 
     /**

@@ -129,12 +129,10 @@ public record IndependentResults(String cohort, List<Row> predictions, List<Metr
             MetricIntervals.Ci c = ci.get(m);
             out.add(new Metric(p, m, est.get(m), c.low(), c.high(), c.method(), n));
         }
-        boolean probability = classes == 2 && scores != null && s.probabilityClassifiers().contains(p.classifier());
-        double[] pos = new double[n];
-        for (int t = 0; t < n && probability; t++) {
-            pos[t] = scores[t][s.positiveIndex()];
-        }
-        out.addAll(CalibrationMetrics.external(p, truth, probability ? pos : null, s, n));
+        // the positive group's probabilities, or null when the scores are not probabilities of two groups
+        double[] pos = classes == 2 && scores != null && s.probabilityClassifiers().contains(p.classifier())
+                ? java.util.Arrays.stream(scores).mapToDouble(x -> x[s.positiveIndex()]).toArray() : null;
+        out.addAll(CalibrationMetrics.external(p, truth, pos, s, n));
         return out;
     }
 

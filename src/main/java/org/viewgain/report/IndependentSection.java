@@ -30,8 +30,8 @@ final class IndependentSection {
         CsvRows dup = CsvRows.readIfPresent(d.dir, "external_duplicates.csv");
         if (dup != null && !dup.rows().isEmpty()) {
             b.append("<p class=\"warn\"><strong>Possible duplicates:</strong> ").append(dup.rows().size())
-                    .append(" independent subject(s) have a source view that correlates above the duplicate threshold"
-                            + " with a development subject's (external_duplicates.csv). If they are the same people,"
+                    .append(" pair(s) of an independent and a development subject whose source views correlate above"
+                            + " the duplicate threshold (external_duplicates.csv). If they are the same people,"
                             + " the independent cohort is not independent and its results are optimistic.</p>\n");
         }
         if (ext == null) {
