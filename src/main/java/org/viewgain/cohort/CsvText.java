@@ -68,6 +68,49 @@ final class CsvText {
 
     /** Comma-separated records of already read text; {@code file} only names the source in messages. */
     static List<Row> parse(String text, Path file, String role) {
+        return text.indexOf('"') < 0 ? splitCommas(text) : parseQuoted(text, file, role);
+    }
+
+    /**
+     * Text without a quote character, which RFC 4180 then reads as lines of comma-separated cells: the same rows,
+     * cells and line numbers as Apache Commons CSV gives (checked against it in tests), without its per-character
+     * lexer, which took a third of the time of reading a cohort of 268-region matrices.
+     */
+    static List<Row> splitCommas(String text) {
+        List<Row> rows = new ArrayList<>();
+        int n = text.length();
+        int line = 1;
+        int start = 0;
+        while (start <= n) {
+            int end = start;
+            while (end < n && text.charAt(end) != '\n' && text.charAt(end) != '\r') {
+                end++;
+            }
+            List<String> cells = new ArrayList<>();
+            boolean blank = true;
+            int from = start;
+            for (int c = start; c <= end; c++) {
+                if (c == end || text.charAt(c) == ',') {
+                    String cell = text.substring(from, c).strip();
+                    blank &= cell.isEmpty();
+                    cells.add(cell);
+                    from = c + 1;
+                }
+            }
+            if (!blank) {
+                rows.add(new Row(line, cells));
+            }
+            if (end >= n) {
+                break;
+            }
+            start = end + (text.charAt(end) == '\r' && end + 1 < n && text.charAt(end + 1) == '\n' ? 2 : 1);
+            line++;
+        }
+        return rows;
+    }
+
+    /** RFC 4180 records of text with quotes, by Apache Commons CSV. */
+    static List<Row> parseQuoted(String text, Path file, String role) {
         CSVFormat format = CSVFormat.RFC4180.builder().setIgnoreEmptyLines(false).build();
         List<Row> rows = new ArrayList<>();
         long linesBefore = 0;

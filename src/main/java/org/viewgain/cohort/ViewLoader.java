@@ -54,16 +54,26 @@ public final class ViewLoader {
         Map<String, double[]> upper = new LinkedHashMap<>();
         MatrixFile.Parsed first = null;
         MatrixFile.Parsed firstNamed = null;
-        for (String id : subjectIds) {
-            Path file = Path.of(pattern.replace(SUBJECT_PLACEHOLDER, id));
-            if (!Files.exists(file)) {
+        List<Read> reads = List.of();
+        for (int s = 0; s < subjectIds.size(); s++) {
+            if (s % READ_BATCH == 0) {
+                reads = readBatch(viewName, pattern, subjectIds.subList(s, Math.min(subjectIds.size(),
+                        s + READ_BATCH)), variable, symmetryTolerance);
+            }
+            Read read = reads.get(s % READ_BATCH);
+            String id = subjectIds.get(s);
+            Path file = read.file();
+            if (read.absent()) {
                 if (missingAllowed) {
                     continue;
                 }
                 throw new BadInputException("view " + viewName + ": no matrix file for subject " + id
                         + ": expected " + file + " (this view may not be missing)");
             }
-            MatrixFile.Parsed p = MatrixFile.read(viewName, id, file, variable, symmetryTolerance);
+            if (read.failure() != null) {
+                throw read.failure();
+            }
+            MatrixFile.Parsed p = read.parsed();
             if (first == null) {
                 first = p;
             } else if (p.regions() != first.regions()) {
@@ -100,6 +110,32 @@ public final class ViewLoader {
             names = listed;
         }
         return View.graph(viewName, names, upper);
+    }
+
+    /** Subjects whose files are read at once, in parallel (a batch's matrices are held until they are checked). */
+    private static final int READ_BATCH = 32;
+
+    /** One subject's file: absent, read, or refused (the refusal is raised when its turn comes, in subject order). */
+    private record Read(Path file, boolean absent, MatrixFile.Parsed parsed, RuntimeException failure) {
+    }
+
+    /**
+     * Reads a batch of subjects' files in parallel (parsing numbers dominates reading a cohort). The results are
+     * checked in subject order afterwards, so the first problem reported is the same on any number of threads.
+     */
+    private static List<Read> readBatch(String viewName, String pattern, List<String> ids, String variable,
+                                        double symmetryTolerance) {
+        return ids.parallelStream().map(id -> {
+            Path file = Path.of(pattern.replace(SUBJECT_PLACEHOLDER, id));
+            if (!Files.exists(file)) {
+                return new Read(file, true, null, null);
+            }
+            try {
+                return new Read(file, false, MatrixFile.read(viewName, id, file, variable, symmetryTolerance), null);
+            } catch (RuntimeException e) {
+                return new Read(file, false, null, e);
+            }
+        }).toList();
     }
 
     /**

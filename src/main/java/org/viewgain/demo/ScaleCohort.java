@@ -92,13 +92,23 @@ public final class ScaleCohort {
         }
     }
 
-    /** {@code args}: folder, subjects, regions, seed (default 1). */
+    /**
+     * {@code args}: folder, subjects, regions, seed (default 1); optionally then a people seed, an id prefix and the
+     * fraction of subjects without a target (an independent cohort of the seed's population, as in {@link
+     * #write(Path, int, int, long, long, String, double, double)} with the usual group shift).
+     */
     public static void main(String[] args) {
-        if (args.length < 3) {
-            throw new IllegalArgumentException("usage: ScaleCohort DIR SUBJECTS REGIONS [SEED]");
+        if (args.length != 3 && args.length != 4 && args.length != 7) {
+            throw new IllegalArgumentException("usage: ScaleCohort DIR SUBJECTS REGIONS [SEED [PEOPLE_SEED PREFIX"
+                    + " TARGET_MISSING]]");
         }
-        write(Path.of(args[0]), Integer.parseInt(args[1]), Integer.parseInt(args[2]),
-                args.length > 3 ? Long.parseLong(args[3]) : 1L);
+        long seed = args.length > 3 ? Long.parseLong(args[3]) : 1L;
+        if (args.length == 7) {
+            write(Path.of(args[0]), Integer.parseInt(args[1]), Integer.parseInt(args[2]), seed,
+                    Long.parseLong(args[4]), args[5], Double.parseDouble(args[6]), GROUP_SHIFT);
+        } else {
+            write(Path.of(args[0]), Integer.parseInt(args[1]), Integer.parseInt(args[2]), seed);
+        }
     }
 
     static String id(int s) {

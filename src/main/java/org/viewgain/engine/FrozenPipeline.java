@@ -36,25 +36,48 @@ public record FrozenPipeline(Pipeline pipeline, CohortShape shape, ViewImputer.F
                 .filter(i -> !pipeline.featureSet().needsObservedTarget() || d.hasTarget(i)).toArray();
     }
 
+    /** Subjects whose feature rows are built and predicted at once; every step and model works row by row. */
+    private static final int CHUNK = 128;
+
     /** Predicts every subject of its population, in cohort order. */
     public List<Prediction> predict(IndependentData d) {
+        return predict(d, pipeline.featureSet().needsImputer() ? impute(d, everyone(d)) : null);
+    }
+
+    /**
+     * Predicts every subject of its population, in cohort order, with the imputations of its imputer for every
+     * subject of the cohort ({@link #impute} of {@link #everyone}; null for feature sets without imputed features),
+     * so that pipelines sharing an imputer impute once. Rows are built a chunk of subjects at a time, so the whole
+     * cohort's feature matrix is never held: the steps and models work row by row, so chunks change no value.
+     */
+    public List<Prediction> predict(IndependentData d, double[][] imputedForEveryone) {
+        if (pipeline.featureSet().needsImputer() != (imputedForEveryone != null)) {
+            throw new IllegalArgumentException("imputations are needed exactly when the feature set has imputed"
+                    + " features (" + pipeline.label() + ")");
+        }
         int[] who = population(d);
-        if (who.length == 0) {
-            return List.of();
-        }
-        Rows x = rows(d, who);
-        for (Transform.Fitted s : steps) {
-            x = s.apply(x);
-        }
-        Predictions pr = model.predict(x);
         int positive = shape.groups().size() == 2 ? shape.groups().indexOf(shape.positive()) : -1;
         List<Prediction> out = new ArrayList<>(who.length);
-        for (int t = 0; t < who.length; t++) {
-            double[] scores = pr.hasScores() ? pr.scores()[t] : null;
-            double score = scores == null ? Double.NaN : positive >= 0 ? scores[positive] : scores[pr.labels()[t]];
-            out.add(new Prediction(who[t], pr.labels()[t], score, scores));
+        for (int from = 0; from < who.length; from += CHUNK) {
+            int[] chunk = java.util.Arrays.copyOfRange(who, from, Math.min(who.length, from + CHUNK));
+            Rows x = rows(d, chunk, imputedForEveryone);
+            for (Transform.Fitted s : steps) {
+                x = s.apply(x);
+            }
+            Predictions pr = model.predict(x);
+            for (int t = 0; t < chunk.length; t++) {
+                double[] scores = pr.hasScores() ? pr.scores()[t] : null;
+                double score = scores == null ? Double.NaN
+                        : positive >= 0 ? scores[positive] : scores[pr.labels()[t]];
+                out.add(new Prediction(chunk[t], pr.labels()[t], score, scores));
+            }
         }
         return out;
+    }
+
+    /** Every subject of the cohort, in order. */
+    public static int[] everyone(IndependentData d) {
+        return java.util.stream.IntStream.range(0, d.n()).toArray();
     }
 
     /** The imputed target base vectors of the given subjects (null without an imputer), before rounding. */
@@ -77,11 +100,10 @@ public record FrozenPipeline(Pipeline pipeline, CohortShape shape, ViewImputer.F
      * Feature rows as the development run built them: source features, then imputed (rounded to single precision
      * as every imputation the run keeps) or observed target features, each extracted as the development data were.
      */
-    Rows rows(IndependentData d, int[] who) {
+    Rows rows(IndependentData d, int[] who, double[][] imputedForEveryone) {
         FeatureSet fs = pipeline.featureSet();
         List<String> extract = shape.extract();
         View targetShape = fs.needsImputer() ? shape.targetShape() : d.target();
-        double[][] imputed = fs.needsImputer() ? impute(d, who) : null;
         double[][] x = new double[who.length][];
         List<String> ids = new ArrayList<>(who.length);
         List<String> names = null;
@@ -93,7 +115,7 @@ public record FrozenPipeline(Pipeline pipeline, CohortShape shape, ViewImputer.F
                 parts.add(stored(extract, d.source(), d.source().base(d.id(i))));
             }
             if (fs.needsImputer()) {
-                double[] base = widen(ImputedFold.compact(imputed[t]));
+                double[] base = widen(ImputedFold.compact(imputedForEveryone[i]));
                 parts.add(Extractors.apply(extract, targetShape, base));
             } else if (fs != FeatureSet.SOURCE) {
                 parts.add(stored(extract, d.target(), d.target().base(d.id(i))));

@@ -74,8 +74,13 @@ public record IndependentResults(String cohort, List<Row> predictions, List<Metr
         List<Row> rows = new ArrayList<>();
         List<Metric> metrics = new ArrayList<>();
         Map<Pipeline, List<FrozenPipeline.Prediction>> byPipeline = new LinkedHashMap<>();
+        // pipelines sharing an imputer (by name: one fit in a run, one part in a bundle) impute the cohort once
+        Map<String, double[][]> imputations = new java.util.HashMap<>();
         for (FrozenPipeline fp : pipelines) {
-            List<FrozenPipeline.Prediction> pr = fp.predict(d);
+            double[][] imputed = !fp.pipeline().featureSet().needsImputer() ? null
+                    : imputations.computeIfAbsent(fp.pipeline().imputer(),
+                            name -> fp.impute(d, FrozenPipeline.everyone(d)));
+            List<FrozenPipeline.Prediction> pr = fp.predict(d, imputed);
             byPipeline.put(fp.pipeline(), pr);
             for (FrozenPipeline.Prediction x : pr) {
                 rows.add(new Row(fp.pipeline(), d.id(x.subject()), d.y() == null ? null : s.groups().get(d.y()[x.subject()]),

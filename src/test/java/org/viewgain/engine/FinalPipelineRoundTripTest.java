@@ -100,4 +100,65 @@ class FinalPipelineRoundTripTest {
         }
         assertTrue(scored == live.size() * ind.n(), "every pipeline gives a score per subject");
     }
+
+    /**
+     * Predicting builds feature rows a chunk of subjects at a time and imputes once per imputer: the predictions
+     * equal those of the whole cohort's rows passed through the steps and the model in one go, and those of each
+     * subject alone, bit for bit (a subject's prediction does not depend on who else is applied).
+     */
+    @Test
+    void givenACohortOfSeveralChunks_whenPredicted_thenEqualToOneBatchAndToEachSubjectAlone() throws IOException {
+        TestCohorts.synthetic(dir, 40, 10, 5, 1.0, 0.3, 23);
+        TestCohorts.synthetic(dir.resolve("ext"), 300, 10, 5, 1.0, 1.0, 24);
+        Path spec = TestCohorts.spec(dir, """
+                features: { scale: standardize, select: { method: t-test, keep: [6] } }
+                imputers:
+                  - { name: ridge, method: ridge, fixed: { alpha: 10 } }
+                feature-sets: [source, source+imputed]
+                classifiers:
+                  - { name: forest, method: random-forest, fixed: { trees: 15 } }
+                  - { name: rbf, method: svm-rbf, fixed: { C: 1 } }
+                validation: { outer: { folds: 3 }, inner: { folds: 3 } }
+                independent-cohort:
+                  subjects: ext/subjects.csv
+                  group: group
+                  views: { source: { table: ext/source.csv } }
+                """);
+        Experiment ex = Setup.prepare(SpecLoader.load(spec));
+        IndependentData ind = ex.independent();
+        FinalStage stage = new FinalStage(ex);
+        int[] all = FrozenPipeline.everyone(ind);
+        int pipelines = 0;
+        for (Pipeline p : ex.pipelines()) {
+            ImputationStage.Final imp = p.featureSet().needsImputer() ? stage.imputer(ex.imputer(p.imputer())) : null;
+            FrozenPipeline fp = stage.live(p, stage.train(p, imp), imp);
+            double[][] imputed = imp == null ? null : fp.impute(ind, all);
+            List<FrozenPipeline.Prediction> chunked = fp.predict(ind, imputed);
+            org.viewgain.cohort.Rows x = fp.rows(ind, all, imputed);
+            for (org.viewgain.prep.Transform.Fitted s : fp.steps()) {
+                x = s.apply(x);
+            }
+            org.viewgain.classify.Predictions whole = fp.model().predict(x);
+            assertEquals(ind.n(), chunked.size());
+            for (int i = 0; i < all.length; i++) {
+                String where = p.label() + " subject " + i;
+                assertEquals(whole.labels()[i], chunked.get(i).predicted(), where);
+                assertArrayEquals(whole.scores()[i], chunked.get(i).scores(), 0.0, where);
+            }
+            for (int i : new int[] {0, 129, 299}) {
+                org.viewgain.cohort.Rows one = fp.rows(ind, new int[] {i}, imputed);
+                for (org.viewgain.prep.Transform.Fitted s : fp.steps()) {
+                    one = s.apply(one);
+                }
+                assertArrayEquals(chunked.get(i).scores(), fp.model().predict(one).scores()[0], 0.0,
+                        p.label() + " subject " + i + " alone");
+                if (imputed != null) {
+                    assertArrayEquals(imputed[i], fp.impute(ind, new int[] {i})[0], 0.0,
+                            p.label() + " subject " + i + " imputed alone");
+                }
+            }
+            pipelines++;
+        }
+        assertEquals(4, pipelines);
+    }
 }
