@@ -39,46 +39,32 @@ final class Cells {
      */
     static boolean isDecimal(String cell) {
         int n = cell.length();
-        int i = 0;
-        if (i < n && (cell.charAt(i) == '+' || cell.charAt(i) == '-')) {
-            i++;
-        }
-        int intDigits = 0;
-        while (i < n && isDigit(cell.charAt(i))) {
-            i++;
-            intDigits++;
-        }
-        int fracDigits = 0;
-        if (i < n && cell.charAt(i) == '.') {
-            i++;
-            while (i < n && isDigit(cell.charAt(i))) {
-                i++;
-                fracDigits++;
-            }
-        }
-        if (intDigits == 0 && fracDigits == 0) {
+        int i = sign(cell, 0);
+        int afterInt = digits(cell, i);
+        int afterFrac = afterInt < n && cell.charAt(afterInt) == '.' ? digits(cell, afterInt + 1) : afterInt;
+        boolean mantissa = afterInt > i || afterFrac > afterInt + 1;
+        if (!mantissa) {
             return false;
         }
-        if (i < n && (cell.charAt(i) == 'e' || cell.charAt(i) == 'E')) {
-            i++;
-            if (i < n && (cell.charAt(i) == '+' || cell.charAt(i) == '-')) {
-                i++;
-            }
-            int expDigits = 0;
-            while (i < n && isDigit(cell.charAt(i))) {
-                i++;
-                expDigits++;
-            }
-            if (expDigits == 0) {
-                return false;
-            }
+        if (afterFrac < n && (cell.charAt(afterFrac) == 'e' || cell.charAt(afterFrac) == 'E')) {
+            int e = sign(cell, afterFrac + 1);
+            int afterExp = digits(cell, e);
+            return afterExp > e && afterExp == n;
         }
-        return i == n;
+        return afterFrac == n;
     }
 
-    /** An ASCII digit, as {@code \d} of {@link #DECIMAL} (ASCII unless the pattern asks for Unicode classes). */
-    private static boolean isDigit(char c) {
-        return c >= '0' && c <= '9';
+    /** The position after an optional sign at {@code i}. */
+    private static int sign(String s, int i) {
+        return i < s.length() && (s.charAt(i) == '+' || s.charAt(i) == '-') ? i + 1 : i;
+    }
+
+    /** The position after the ASCII digits from {@code i} ({@code \d} of {@link #DECIMAL} is ASCII). */
+    private static int digits(String s, int i) {
+        while (i < s.length() && s.charAt(i) >= '0' && s.charAt(i) <= '9') {
+            i++;
+        }
+        return i;
     }
 
     /** What is wrong with a cell for which {@link #finiteOrNaN} gave NaN, for messages. */

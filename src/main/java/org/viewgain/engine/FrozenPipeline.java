@@ -56,11 +56,13 @@ public record FrozenPipeline(Pipeline pipeline, CohortShape shape, ViewImputer.F
                     + " features (" + pipeline.label() + ")");
         }
         int[] who = population(d);
+        List<String> names = null;
         int positive = shape.groups().size() == 2 ? shape.groups().indexOf(shape.positive()) : -1;
         List<Prediction> out = new ArrayList<>(who.length);
         for (int from = 0; from < who.length; from += CHUNK) {
             int[] chunk = java.util.Arrays.copyOfRange(who, from, Math.min(who.length, from + CHUNK));
-            Rows x = rows(d, chunk, imputedForEveryone);
+            Rows x = rows(d, chunk, imputedForEveryone, names);
+            names = x.featureNames();
             for (Transform.Fitted s : steps) {
                 x = s.apply(x);
             }
@@ -101,12 +103,16 @@ public record FrozenPipeline(Pipeline pipeline, CohortShape shape, ViewImputer.F
      * as every imputation the run keeps) or observed target features, each extracted as the development data were.
      */
     Rows rows(IndependentData d, int[] who, double[][] imputedForEveryone) {
+        return rows(d, who, imputedForEveryone, null);
+    }
+
+    /** As {@link #rows(IndependentData, int[], double[][])}, with the column names of an earlier chunk, or null. */
+    private Rows rows(IndependentData d, int[] who, double[][] imputedForEveryone, List<String> known) {
         FeatureSet fs = pipeline.featureSet();
         List<String> extract = shape.extract();
         View targetShape = fs.needsImputer() ? shape.targetShape() : d.target();
         double[][] x = new double[who.length][];
         List<String> ids = new ArrayList<>(who.length);
-        List<String> names = null;
         for (int t = 0; t < who.length; t++) {
             int i = who[t];
             ids.add(d.id(i));
@@ -129,8 +135,9 @@ public record FrozenPipeline(Pipeline pipeline, CohortShape shape, ViewImputer.F
             }
             x[t] = row;
         }
-        names = new ArrayList<>();
-        for (int c = 0; c < (x.length == 0 ? 0 : x[0].length); c++) {
+        int width = x.length == 0 ? 0 : x[0].length;
+        List<String> names = known != null && known.size() == width ? known : new ArrayList<>(width);
+        for (int c = names.size(); c < width; c++) {
             names.add("f" + c);
         }
         return new Rows(ids, x, names);
