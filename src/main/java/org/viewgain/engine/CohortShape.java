@@ -10,14 +10,17 @@ import org.viewgain.cohort.View;
  *
  * @param targetNames the target view's region or column names; empty when the development cohort had no target
  * @param positive    the positive group, or null for three or more groups
+ * @param sites       the sites the pipelines harmonize (ComBat, {@code features.harmonize}), sorted; empty without
+ *                    harmonization. A cohort applied must then name a site column and only these sites
  */
 public record CohortShape(boolean sourceGraph, List<String> sourceNames, boolean targetGraph, List<String> targetNames,
-                          List<String> extract, List<String> groups, String positive) {
+                          List<String> extract, List<String> groups, String positive, List<String> sites) {
     public CohortShape {
         sourceNames = List.copyOf(sourceNames);
         targetNames = List.copyOf(targetNames);
         extract = List.copyOf(extract);
         groups = List.copyOf(groups);
+        sites = List.copyOf(sites);
     }
 
     /** The shape of an experiment's development cohort. */
@@ -26,7 +29,13 @@ public record CohortShape(boolean sourceGraph, List<String> sourceNames, boolean
         View t = d.target();
         return new CohortShape(d.source().isGraph(), names(d.source()), t != null && t.isGraph(),
                 t == null ? List.of() : names(t), ex.spec().features().extract(), ex.spec().cohort().groups(),
-                ex.spec().cohort().positive());
+                ex.spec().cohort().positive(), ex.prep().harmonizer() == null ? List.of()
+                        : d.subjects().stream().map(org.viewgain.cohort.Subject::site).distinct().sorted().toList());
+    }
+
+    /** Whether the pipelines harmonize sites, so that a cohort applied needs a site for every subject. */
+    boolean harmonized() {
+        return !sites.isEmpty();
     }
 
     /** Region names of a graph view, column names of a table. */

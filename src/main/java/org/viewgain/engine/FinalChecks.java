@@ -9,7 +9,8 @@ import org.viewgain.spec.Problems;
 /**
  * Before anything runs: a spec that asks for final pipelines (an independent cohort, or {@code bundle: true}) may
  * use only steps and methods that can be frozen into a bundle, so that the independent cohort's predictions and a
- * later {@code viewgain apply} come from the same parts.
+ * later {@code viewgain apply} come from the same parts. ComBat is frozen with the development sites' parameters;
+ * a cohort with another site is refused when it is loaded ({@link IndependentData#load}).
  */
 final class FinalChecks {
     private FinalChecks() {
@@ -24,11 +25,6 @@ final class FinalChecks {
         if (!spec.features().adjust().isEmpty()) {
             problems.add("features.adjust", "covariate adjustment cannot be frozen into a bundle yet (" + why
                     + "); remove features.adjust or the independent cohort");
-        }
-        if (spec.features().harmonize() != null) {
-            problems.add("features.harmonize", "ComBat is not frozen into bundles: a new cohort's sites have no"
-                    + " location and scale of their own in the development fit, and another site's would be wrong ("
-                    + why + "); remove features.harmonize or the independent cohort");
         }
         for (Resolved.Imputer imp : imputers) {
             boolean used = pipelines.stream().anyMatch(p -> p.imputer().equals(imp.name()));

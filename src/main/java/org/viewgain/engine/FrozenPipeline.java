@@ -21,6 +21,13 @@ public record FrozenPipeline(Pipeline pipeline, CohortShape shape, ViewImputer.F
                              List<Transform.Fitted> steps, ClassifierMethod.Model model) {
     public FrozenPipeline {
         steps = List.copyOf(steps);
+        for (Transform.Fitted s : steps) {
+            java.util.SortedSet<String> sites = org.viewgain.prep.FrozenSteps.sites(s);
+            if (!sites.isEmpty() && !List.copyOf(sites).equals(shape.sites())) {
+                throw new IllegalArgumentException("pipeline " + pipeline.label() + " harmonizes the sites " + sites
+                        + " but the cohort shape lists " + shape.sites());
+            }
+        }
     }
 
     /** One subject's prediction: position in the cohort, predicted class, positive score and scores per class. */
@@ -56,6 +63,9 @@ public record FrozenPipeline(Pipeline pipeline, CohortShape shape, ViewImputer.F
                     + " features (" + pipeline.label() + ")");
         }
         int[] who = population(d);
+        // steps that read sites (ComBat) read the applied cohort's; IndependentData.load admitted only known sites
+        List<Transform.Fitted> applied = steps.stream()
+                .map(s -> s instanceof Transform.BySite b ? b.withSites(d.siteById()) : s).toList();
         List<String> names = null;
         int positive = shape.groups().size() == 2 ? shape.groups().indexOf(shape.positive()) : -1;
         List<Prediction> out = new ArrayList<>(who.length);
@@ -63,7 +73,7 @@ public record FrozenPipeline(Pipeline pipeline, CohortShape shape, ViewImputer.F
             int[] chunk = java.util.Arrays.copyOfRange(who, from, Math.min(who.length, from + CHUNK));
             Rows x = rows(d, chunk, imputedForEveryone, names);
             names = x.featureNames();
-            for (Transform.Fitted s : steps) {
+            for (Transform.Fitted s : applied) {
                 x = s.apply(x);
             }
             Predictions pr = model.predict(x);

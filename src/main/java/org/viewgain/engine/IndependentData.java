@@ -33,6 +33,7 @@ public record IndependentData(Specs.Independent spec, List<Subject> subjects, in
     public static IndependentData load(Specs.Independent spec, CohortShape dev) {
         List<Subject> subjects = SubjectsTable.load(spec.subjects(), spec.id(), spec.group(), spec.site(), List.of(),
                 dev.groups());
+        checkSites(spec, subjects, dev);
         List<String> ids = subjects.stream().map(Subject::id).toList();
         View source = ViewLoader.load(spec.source(), ids);
         String diff = CohortShape.difference(source, dev.sourceGraph(), dev.sourceNames());
@@ -59,6 +60,41 @@ public record IndependentData(Specs.Independent spec, List<Subject> subjects, in
             }
         }
         return new IndependentData(spec, subjects, y, source, target, List.of());
+    }
+
+    /**
+     * With harmonized pipelines, every subject needs a site the development cohort had: ComBat holds a location and
+     * scale for those sites only, and applying another site's to a new scanner would be wrong.
+     */
+    private static void checkSites(Specs.Independent spec, List<Subject> subjects, CohortShape dev) {
+        if (!dev.harmonized()) {
+            return;
+        }
+        if (spec.site() == null) {
+            throw new BadInputException(key(spec, "site") + ": required: the development pipelines harmonize sites"
+                    + " by ComBat (features.harmonize), so every subject needs a site; the development sites are "
+                    + String.join(", ", dev.sites()));
+        }
+        for (Subject s : subjects) {
+            if (!dev.sites().contains(s.site())) {
+                throw new BadInputException(spec.subjects() + " line " + s.line() + ": subject '" + s.id()
+                        + "' is from site '" + s.site() + "', which the development cohort does not have ("
+                        + String.join(", ", dev.sites()) + "); ComBat has no location and scale for it and will not"
+                        + " use another site's. Leave out that site's subjects, or harmonize without features"
+                        + ".harmonize");
+            }
+        }
+    }
+
+    /** Each subject's site (subject id to site); empty when the cohort names no site column. */
+    public java.util.Map<String, String> siteById() {
+        java.util.Map<String, String> out = new java.util.HashMap<>();
+        for (Subject s : subjects) {
+            if (s.site() != null) {
+                out.put(s.id(), s.site());
+            }
+        }
+        return out;
     }
 
     /** A key of the cohort for messages: {@code independent-cohort.views.source}, or {@code FILE: views.source}. */

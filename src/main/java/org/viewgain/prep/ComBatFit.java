@@ -4,8 +4,13 @@ import java.util.List;
 import java.util.Map;
 import org.viewgain.cohort.Rows;
 
-/** ComBat fitted on training rows: standardization and the per-site posterior location and scale. */
-final class ComBatFit implements Transform.Fitted {
+/**
+ * ComBat fitted on training rows: standardization and the per-site posterior location and scale. It can be frozen
+ * into a bundle (without covariates, which bundles refuse) and applied to subjects of another cohort from the sites
+ * it was fitted on; a subject of any other site is refused, never given another site's parameters.
+ */
+final class ComBatFit implements Transform.Fitted, Transform.BySite, org.viewgain.frozen.Freezable {
+    static final String KIND = "combat";
 
     private final ComBat owner;
     private final Map<String, Integer> siteIndex;
@@ -27,6 +32,68 @@ final class ComBatFit implements Transform.Fitted {
         for (int j = 0; j < alpha.length; j++) {
             active[j] = pooledSd[j] > 1e-12 * Math.max(1, Math.abs(alpha[j]));
         }
+    }
+
+    @Override
+    public Transform.Fitted withSites(Map<String, String> siteById) {
+        if (slopes.length > 0) {
+            throw new IllegalStateException("ComBat with covariates reads them from its training cohort only");
+        }
+        ComBatFit f = new ComBatFit(new ComBat(siteById, Map.of()), siteIndex, alpha, slopes, pooledSd);
+        f.gammaStar = gammaStar;
+        f.delta2Star = delta2Star;
+        return f;
+    }
+
+    @Override
+    public String kind() {
+        return KIND;
+    }
+
+    /** Site names in the order of their parameters. */
+    private List<String> siteNames() {
+        String[] names = new String[siteIndex.size()];
+        siteIndex.forEach((site, s) -> names[s] = site);
+        return List.of(names);
+    }
+
+    @Override
+    public void freeze(org.viewgain.frozen.FrozenOut out) {
+        if (slopes.length > 0) {
+            throw new IllegalStateException("ComBat with covariates cannot be frozen (covariate adjustment is refused"
+                    + " in bundles)");
+        }
+        out.texts(siteNames()).numbers(alpha).numbers(pooledSd).matrix(gammaStar).matrix(delta2Star);
+    }
+
+    /** A frozen ComBat read back; it needs the sites of the cohort it is applied to ({@link #withSites}). */
+    static ComBatFit thaw(org.viewgain.frozen.FrozenIn in) {
+        List<String> sites = in.texts();
+        double[] alpha = in.numbers();
+        double[] pooledSd = in.numbers();
+        double[][] gamma = in.matrix();
+        double[][] delta2 = in.matrix();
+        if (sites == null || alpha == null || pooledSd == null || gamma == null || delta2 == null
+                || sites.isEmpty() || alpha.length != pooledSd.length || gamma.length != sites.size()
+                || delta2.length != sites.size()) {
+            throw in.bad("sites and parameters differ in count");
+        }
+        Map<String, Integer> index = new java.util.HashMap<>();
+        for (int s = 0; s < sites.size(); s++) {
+            if (gamma[s].length != alpha.length || delta2[s].length != alpha.length
+                    || index.put(sites.get(s), s) != null) {
+                throw in.bad("a site's parameters differ in length from the features, or a site is repeated");
+            }
+        }
+        ComBatFit f = new ComBatFit(new ComBat(Map.of(), Map.of()), index, alpha, new double[0][], pooledSd);
+        f.gammaStar = gamma;
+        f.delta2Star = delta2;
+        return f;
+    }
+
+    /** The sites this fit has parameters for, sorted. */
+    java.util.SortedSet<String> sites() {
+        return new java.util.TreeSet<>(siteIndex.keySet());
     }
 
     /** alpha + covariates * beta for one subject and feature. */

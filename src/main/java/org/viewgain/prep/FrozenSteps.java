@@ -16,14 +16,18 @@ public final class FrozenSteps {
         Transform.Fitted out = switch (in.kind()) {
             case Standardize.Scaling.KIND -> Standardize.Scaling.thaw(in);
             case SelectTopK.Selection.KIND -> SelectTopK.Selection.thaw(in);
+            case ComBatFit.KIND -> ComBatFit.thaw(in);
             default -> throw in.bad("not a step this version can read");
         };
         in.end();
         return out;
     }
 
-    /** Whether a configured step can be frozen: standardization and selection; adjustment and ComBat cannot yet. */
-    public static boolean freezable(Transform t) {
-        return t instanceof Standardize || t instanceof SelectTopK;
+    /**
+     * The sites a fitted step harmonizes, sorted: those of a ComBat fit, empty for any other step. A cohort it is
+     * applied to must have only these sites.
+     */
+    public static java.util.SortedSet<String> sites(Transform.Fitted f) {
+        return f instanceof ComBatFit c ? c.sites() : new java.util.TreeSet<>();
     }
 }

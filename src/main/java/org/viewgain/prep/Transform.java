@@ -28,4 +28,13 @@ public interface Transform {
             return apply(rows);
         }
     }
+
+    /**
+     * A fitted step that reads each subject's site (ComBat). Applied to another cohort, it is first given that
+     * cohort's sites; the fitted parameters stay those of the training rows.
+     */
+    interface BySite {
+        /** The same fitted step, reading sites from {@code siteById} (subject id to site). */
+        Fitted withSites(java.util.Map<String, String> siteById);
+    }
 }

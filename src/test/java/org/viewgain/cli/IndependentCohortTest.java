@@ -279,4 +279,54 @@ class IndependentCohortTest {
         assertTrue(rows.get(1).startsWith("later-clinic,e00001,d00001,"), rows.toString());
         assertTrue(Files.readString(run.resolve("report.html")).contains("Possible duplicates:"));
     }
+
+    /**
+     * ComBat in a bundle: fitted on the whole development cohort (sites north and south), frozen with those sites'
+     * parameters and applied to independent subjects of the same sites; {@code apply} gives the run's tables byte for
+     * byte. An independent subject from a site the development cohort lacks, or a cohort without a site column, is
+     * refused with one line before anything is written (by {@code run} and by {@code apply}).
+     */
+    @Test
+    void givenComBat_whenRunAndApplied_thenKnownSitesHarmonizedAndAnUnseenSiteRefused() throws IOException {
+        Path spec = cohorts(1.0, 90, 60);
+        Files.writeString(spec, SPEC.replace("validation:", "features: { harmonize: combat }\nvalidation:"));
+        Path run = run(spec, "out");
+        com.fasterxml.jackson.databind.JsonNode m = new com.fasterxml.jackson.databind.ObjectMapper()
+                .readTree(run.resolve("bundle/manifest.json").toFile());
+        assertEquals("[\"north\",\"south\"]", m.get("shape").get("sites").toString());
+        String first = m.get("pipelines").get(0).get("steps").get(0).asText();
+        assertEquals("combat", new org.viewgain.frozen.FrozenIn(first,
+                Files.readAllBytes(run.resolve("bundle").resolve(first))).kind(), "the first step is ComBat");
+        Path cohort = Files.writeString(dir.resolve("cohort.yaml"), COHORT);
+        CliTest.Outcome o = CliTest.run("apply", run.resolve("bundle").toString(), cohort.toString(), "--out",
+                dir.resolve("applied").toString());
+        assertEquals(0, o.code(), o.err());
+        for (String t : List.of("external_predictions.csv", "external_metrics.csv", "external_comparisons.csv")) {
+            assertEquals(Files.readString(run.resolve(t)), Files.readString(dir.resolve("applied").resolve(t)), t);
+        }
+
+        Path subjects = dir.resolve("ext/subjects.csv");
+        List<String> lines = new java.util.ArrayList<>(Files.readAllLines(subjects));
+        assertTrue(lines.get(2).endsWith(",south"), lines.get(2));
+        String moved = lines.get(2).split(",")[0];
+        lines.set(2, lines.get(2).replace(",south", ",west"));
+        Files.write(subjects, lines);
+        o = CliTest.run("apply", run.resolve("bundle").toString(), cohort.toString(), "--out",
+                dir.resolve("a1").toString());
+        assertEquals(2, o.code(), o.err());
+        assertTrue(o.err().strip().lines().count() == 1 && o.err().contains("subjects.csv line 3: subject '" + moved
+                + "' is from site 'west', which the development cohort does not have (north, south)"), o.err());
+        assertFalse(Files.exists(dir.resolve("a1")));
+        o = CliTest.run("run", spec.toString(), "--out", dir.resolve("r1").toString(), "--quiet");
+        assertEquals(2, o.code(), o.err());
+        assertTrue(o.err().strip().lines().count() == 1 && o.err().contains("site 'west'"), o.err());
+        assertFalse(Files.exists(dir.resolve("r1")));
+
+        Files.writeString(cohort, COHORT.replace("site: site\n", ""));
+        o = CliTest.run("apply", run.resolve("bundle").toString(), cohort.toString(), "--out",
+                dir.resolve("a2").toString());
+        assertEquals(2, o.code(), o.err());
+        assertTrue(o.err().strip().lines().count() == 1 && o.err().contains(": site: required"), o.err());
+        assertFalse(Files.exists(dir.resolve("a2")));
+    }
 }

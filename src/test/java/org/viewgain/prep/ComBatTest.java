@@ -183,4 +183,38 @@ class ComBatTest {
         assertEquals(expected[0][0], out.x()[0][0], 1e-8);
         assertEquals(expected[7][2], out.x()[7][2], 1e-8);
     }
+
+    /**
+     * A frozen ComBat read back and given a new cohort's sites harmonizes new subjects of the training sites with
+     * the training fit's parameters: bit for bit as the fit in memory does, and for a new subject with the values
+     * of training subject a2, exactly as a2 was harmonized (by hand above, Johnson, Li &amp; Rabinovic 2007). A
+     * subject of a site the fit has no parameters for is refused, not given another site's.
+     */
+    @Test
+    void givenAFrozenFit_whenThawedAndAppliedToANewCohort_thenSameValuesAndUnseenSitesRefused() {
+        ComBatFit fitted = (ComBatFit) new ComBat(SITES).fit(CTX, rows(IDS, X), new int[8]);
+        Transform.Fitted thawed = FrozenSteps.thaw(new org.viewgain.frozen.FrozenIn("test",
+                org.viewgain.frozen.FrozenOut.of(fitted)));
+        assertEquals(java.util.Set.of("A", "B"), FrozenSteps.sites(thawed));
+        Map<String, String> newSites = Map.of("n1", "B", "n2", "A", "n3", "B");
+        Rows fresh = rows(List.of("n1", "n2", "n3"), new double[][] {{3.3, 14.1, 8.2}, X[1].clone(), {0, 0, 0}});
+        Rows live = fitted.withSites(newSites).apply(fresh);
+        Rows back = ((Transform.BySite) thawed).withSites(newSites).apply(fresh);
+        for (int i = 0; i < 3; i++) {
+            for (int g = 0; g < 3; g++) {
+                assertEquals(Double.doubleToRawLongBits(live.x()[i][g]), Double.doubleToRawLongBits(back.x()[i][g]),
+                        "subject " + i + " feature " + g);
+            }
+        }
+        double[][] expected = byHand();
+        for (int g = 0; g < 3; g++) {
+            assertEquals(expected[1][g], back.x()[1][g], 1e-8, "a new subject of site A with a2's values");
+        }
+        Rows unseen = rows(List.of("n4"), new double[][] {{1, 2, 3}});
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
+                () -> ((Transform.BySite) thawed).withSites(Map.of("n4", "C")).apply(unseen));
+        assertTrue(e.getMessage().contains("'C'") && e.getMessage().contains("'n4'"), e.getMessage());
+        assertThrows(IllegalArgumentException.class, () -> thawed.apply(unseen),
+                "a thawed fit knows no subject's site until it is given a cohort's");
+    }
 }
