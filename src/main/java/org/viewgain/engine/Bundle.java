@@ -86,6 +86,7 @@ public final class Bundle {
         cs.groups().forEach(shape.putArray("groups")::add);
         shape.put("positive", cs.positive());
         cs.sites().forEach(shape.putArray("sites")::add);
+        cs.covariates().forEach(shape.putArray("covariates")::add);
         Specs.Significance sig = ex.spec().significance();
         m.putObject("intervals").put("confidence", sig.confidence()).put("bootstrap", sig.bootstrap());
         ArrayNode imps = m.putArray("imputers");
@@ -185,7 +186,7 @@ public final class Bundle {
         CohortShape shape = new CohortShape(s.get("source_graph").asBoolean(), texts(s.get("source_names")),
                 s.get("target_graph").asBoolean(), texts(s.get("target_names")), texts(s.get("extract")),
                 texts(s.get("groups")), s.get("positive").isNull() ? null : s.get("positive").asText(),
-                texts(s.path("sites")));
+                texts(s.path("sites")), texts(s.path("covariates")));
         Map<String, byte[]> imputers = new TreeMap<>();
         for (JsonNode i : m.get("imputers")) {
             imputers.put(i.get("name").asText(), part(parts, i.get("part").asText()));

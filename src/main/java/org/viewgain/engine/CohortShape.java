@@ -12,15 +12,19 @@ import org.viewgain.cohort.View;
  * @param positive    the positive group, or null for three or more groups
  * @param sites       the sites the pipelines harmonize (ComBat, {@code features.harmonize}), sorted; empty without
  *                    harmonization. A cohort applied must then name a site column and only these sites
+ * @param covariates  the covariates the pipelines adjust for ({@code features.adjust}), in order; a cohort applied
+ *                    must have these columns in its subjects table
  */
 public record CohortShape(boolean sourceGraph, List<String> sourceNames, boolean targetGraph, List<String> targetNames,
-                          List<String> extract, List<String> groups, String positive, List<String> sites) {
+                          List<String> extract, List<String> groups, String positive, List<String> sites,
+                          List<String> covariates) {
     public CohortShape {
         sourceNames = List.copyOf(sourceNames);
         targetNames = List.copyOf(targetNames);
         extract = List.copyOf(extract);
         groups = List.copyOf(groups);
         sites = List.copyOf(sites);
+        covariates = List.copyOf(covariates);
     }
 
     /** The shape of an experiment's development cohort. */
@@ -30,7 +34,8 @@ public record CohortShape(boolean sourceGraph, List<String> sourceNames, boolean
         return new CohortShape(d.source().isGraph(), names(d.source()), t != null && t.isGraph(),
                 t == null ? List.of() : names(t), ex.spec().features().extract(), ex.spec().cohort().groups(),
                 ex.spec().cohort().positive(), ex.prep().harmonizer() == null ? List.of()
-                        : d.subjects().stream().map(org.viewgain.cohort.Subject::site).distinct().sorted().toList());
+                        : d.subjects().stream().map(org.viewgain.cohort.Subject::site).distinct().sorted().toList(),
+                ex.spec().features().adjust());
     }
 
     /** Whether the pipelines harmonize sites, so that a cohort applied needs a site for every subject. */

@@ -9,8 +9,9 @@ import org.viewgain.spec.Problems;
 /**
  * Before anything runs: a spec that asks for final pipelines (an independent cohort, or {@code bundle: true}) may
  * use only steps and methods that can be frozen into a bundle, so that the independent cohort's predictions and a
- * later {@code viewgain apply} come from the same parts. ComBat is frozen with the development sites' parameters;
- * a cohort with another site is refused when it is loaded ({@link IndependentData#load}).
+ * later {@code viewgain apply} come from the same parts. Every step of {@code features} can be frozen: ComBat with
+ * the development sites' parameters (a cohort with another site is refused when it is loaded, {@link
+ * IndependentData#load}), covariate adjustment with its slopes (a cohort applied must have the covariate columns).
  */
 final class FinalChecks {
     private FinalChecks() {
@@ -22,10 +23,6 @@ final class FinalChecks {
             return;
         }
         String why = spec.independent() != null ? IndependentKeys.KEY + " is given" : "bundle is true";
-        if (!spec.features().adjust().isEmpty()) {
-            problems.add("features.adjust", "covariate adjustment cannot be frozen into a bundle yet (" + why
-                    + "); remove features.adjust or the independent cohort");
-        }
         for (Resolved.Imputer imp : imputers) {
             boolean used = pipelines.stream().anyMatch(p -> p.imputer().equals(imp.name()));
             if (used && !imp.method().freezable()) {

@@ -27,6 +27,10 @@ public record FrozenPipeline(Pipeline pipeline, CohortShape shape, ViewImputer.F
                 throw new IllegalArgumentException("pipeline " + pipeline.label() + " harmonizes the sites " + sites
                         + " but the cohort shape lists " + shape.sites());
             }
+            if (!org.viewgain.prep.FrozenSteps.readsCovariates(s, shape.covariates())) {
+                throw new IllegalArgumentException("pipeline " + pipeline.label() + " has a step fitted on other"
+                        + " covariates than the cohort shape's " + shape.covariates());
+            }
         }
     }
 
@@ -63,9 +67,12 @@ public record FrozenPipeline(Pipeline pipeline, CohortShape shape, ViewImputer.F
                     + " features (" + pipeline.label() + ")");
         }
         int[] who = population(d);
-        // steps that read sites (ComBat) read the applied cohort's; IndependentData.load admitted only known sites
+        // steps that read sites or covariates read the applied cohort's; IndependentData.load admitted only the
+        // development sites and required the covariate columns
+        java.util.Map<String, String> sites = d.siteById();
+        java.util.Map<String, double[]> covariates = d.covariatesById(shape.covariates());
         List<Transform.Fitted> applied = steps.stream()
-                .map(s -> s instanceof Transform.BySite b ? b.withSites(d.siteById()) : s).toList();
+                .map(s -> s instanceof Transform.PerSubject b ? b.forCohort(sites, covariates) : s).toList();
         List<String> names = null;
         int positive = shape.groups().size() == 2 ? shape.groups().indexOf(shape.positive()) : -1;
         List<Prediction> out = new ArrayList<>(who.length);

@@ -31,8 +31,9 @@ public record IndependentData(Specs.Independent spec, List<Subject> subjects, in
      * the view and the first region (or column) that differs.
      */
     public static IndependentData load(Specs.Independent spec, CohortShape dev) {
-        List<Subject> subjects = SubjectsTable.load(spec.subjects(), spec.id(), spec.group(), spec.site(), List.of(),
-                dev.groups());
+        // the covariates the pipelines adjust for must be columns of this cohort's table too (same names)
+        List<Subject> subjects = SubjectsTable.load(spec.subjects(), spec.id(), spec.group(), spec.site(),
+                dev.covariates(), dev.groups());
         checkSites(spec, subjects, dev);
         List<String> ids = subjects.stream().map(Subject::id).toList();
         View source = ViewLoader.load(spec.source(), ids);
@@ -80,8 +81,8 @@ public record IndependentData(Specs.Independent spec, List<Subject> subjects, in
                 throw new BadInputException(spec.subjects() + " line " + s.line() + ": subject '" + s.id()
                         + "' is from site '" + s.site() + "', which the development cohort does not have ("
                         + String.join(", ", dev.sites()) + "); ComBat has no location and scale for it and will not"
-                        + " use another site's. Leave out that site's subjects, or harmonize without features"
-                        + ".harmonize");
+                        + " use another site's. Leave out that site's subjects, or drop features.harmonize from the"
+                        + " development spec");
             }
         }
     }
@@ -93,6 +94,15 @@ public record IndependentData(Specs.Independent spec, List<Subject> subjects, in
             if (s.site() != null) {
                 out.put(s.id(), s.site());
             }
+        }
+        return out;
+    }
+
+    /** Each subject's values of these covariates, in this order (subject id to values). */
+    public java.util.Map<String, double[]> covariatesById(List<String> names) {
+        java.util.Map<String, double[]> out = new java.util.HashMap<>();
+        for (Subject s : subjects) {
+            out.put(s.id(), names.stream().mapToDouble(s::covariate).toArray());
         }
         return out;
     }

@@ -5,11 +5,11 @@ import java.util.Map;
 import org.viewgain.cohort.Rows;
 
 /**
- * ComBat fitted on training rows: standardization and the per-site posterior location and scale. It can be frozen
- * into a bundle (without covariates, which bundles refuse) and applied to subjects of another cohort from the sites
- * it was fitted on; a subject of any other site is refused, never given another site's parameters.
+ * ComBat fitted on training rows: standardization (with the covariates' slopes) and the per-site posterior location
+ * and scale. It can be frozen into a bundle and applied to subjects of another cohort from the sites it was fitted
+ * on; a subject of any other site is refused, never given another site's parameters.
  */
-final class ComBatFit implements Transform.Fitted, Transform.BySite, org.viewgain.frozen.Freezable {
+final class ComBatFit implements Transform.Fitted, Transform.PerSubject, org.viewgain.frozen.Freezable {
     static final String KIND = "combat";
 
     private final ComBat owner;
@@ -35,11 +35,9 @@ final class ComBatFit implements Transform.Fitted, Transform.BySite, org.viewgai
     }
 
     @Override
-    public Transform.Fitted withSites(Map<String, String> siteById) {
-        if (slopes.length > 0) {
-            throw new IllegalStateException("ComBat with covariates reads them from its training cohort only");
-        }
-        ComBatFit f = new ComBatFit(new ComBat(siteById, Map.of()), siteIndex, alpha, slopes, pooledSd);
+    public Transform.Fitted forCohort(Map<String, String> siteById, Map<String, double[]> covariatesById) {
+        ComBatFit f = new ComBatFit(new ComBat(siteById, slopes.length == 0 ? Map.of() : covariatesById), siteIndex,
+                alpha, slopes, pooledSd);
         f.gammaStar = gammaStar;
         f.delta2Star = delta2Star;
         return f;
@@ -59,24 +57,25 @@ final class ComBatFit implements Transform.Fitted, Transform.BySite, org.viewgai
 
     @Override
     public void freeze(org.viewgain.frozen.FrozenOut out) {
-        if (slopes.length > 0) {
-            throw new IllegalStateException("ComBat with covariates cannot be frozen (covariate adjustment is refused"
-                    + " in bundles)");
-        }
-        out.texts(siteNames()).numbers(alpha).numbers(pooledSd).matrix(gammaStar).matrix(delta2Star);
+        out.texts(siteNames()).numbers(alpha).matrix(slopes).numbers(pooledSd).matrix(gammaStar).matrix(delta2Star);
     }
 
-    /** A frozen ComBat read back; it needs the sites of the cohort it is applied to ({@link #withSites}). */
+    /**
+     * A frozen ComBat read back; it needs the sites (and covariates) of the cohort it is applied to
+     * ({@link #forCohort}).
+     */
     static ComBatFit thaw(org.viewgain.frozen.FrozenIn in) {
         List<String> sites = in.texts();
         double[] alpha = in.numbers();
+        double[][] slopes = in.matrix();
         double[] pooledSd = in.numbers();
         double[][] gamma = in.matrix();
         double[][] delta2 = in.matrix();
-        if (sites == null || alpha == null || pooledSd == null || gamma == null || delta2 == null
+        if (sites == null || alpha == null || slopes == null || pooledSd == null || gamma == null || delta2 == null
                 || sites.isEmpty() || alpha.length != pooledSd.length || gamma.length != sites.size()
-                || delta2.length != sites.size()) {
-            throw in.bad("sites and parameters differ in count");
+                || delta2.length != sites.size()
+                || java.util.Arrays.stream(slopes).anyMatch(r -> r == null || r.length != alpha.length)) {
+            throw in.bad("sites, covariates and parameters differ in count");
         }
         Map<String, Integer> index = new java.util.HashMap<>();
         for (int s = 0; s < sites.size(); s++) {
@@ -85,10 +84,15 @@ final class ComBatFit implements Transform.Fitted, Transform.BySite, org.viewgai
                 throw in.bad("a site's parameters differ in length from the features, or a site is repeated");
             }
         }
-        ComBatFit f = new ComBatFit(new ComBat(Map.of(), Map.of()), index, alpha, new double[0][], pooledSd);
+        ComBatFit f = new ComBatFit(new ComBat(Map.of(), Map.of()), index, alpha, slopes, pooledSd);
         f.gammaStar = gamma;
         f.delta2Star = delta2;
         return f;
+    }
+
+    /** How many covariates the fit keeps (ComBat's protected covariates). */
+    int covariates() {
+        return slopes.length;
     }
 
     /** The sites this fit has parameters for, sorted. */

@@ -80,9 +80,37 @@ public final class CovariateAdjust implements Transform {
         }
         int p = train.p();
         int q = names.size();
-        double[][] slopes = beta.getSubMatrix(1, q, 0, p - 1).getData();
-        return rows -> {
-            double[][] c = design(rows, false);
+        return new Adjustment(this, beta.getSubMatrix(1, q, 0, p - 1).getData());
+    }
+
+    /**
+     * The fitted adjustment: the training slopes of every feature on the covariates. It can be frozen into a bundle
+     * (covariate names and slopes) and applied to another cohort's subjects with their own covariate values.
+     */
+    static final class Adjustment implements Fitted, Transform.PerSubject, org.viewgain.frozen.Freezable {
+        static final String KIND = "covariate-adjust";
+        private final CovariateAdjust owner;
+        private final double[][] slopes;
+
+        Adjustment(CovariateAdjust owner, double[][] slopes) {
+            this.owner = owner;
+            this.slopes = slopes;
+        }
+
+        /** The covariates, in the order of their slopes. */
+        List<String> names() {
+            return owner.names;
+        }
+
+        @Override
+        public Rows apply(Rows rows) {
+            int p = slopes.length == 0 ? rows.p() : slopes[0].length;
+            int q = slopes.length;
+            if (rows.p() != p) {
+                throw new IllegalArgumentException("covariate adjustment was fitted on " + p + " columns, got "
+                        + rows.p());
+            }
+            double[][] c = owner.design(rows, false);
             double[][] out = new double[rows.n()][p];
             for (int i = 0; i < rows.n(); i++) {
                 for (int j = 0; j < p; j++) {
@@ -94,6 +122,32 @@ public final class CovariateAdjust implements Transform {
                 }
             }
             return rows.withValues(out, rows.featureNames());
-        };
+        }
+
+        @Override
+        public Fitted forCohort(Map<String, String> siteById, Map<String, double[]> covariatesById) {
+            return new Adjustment(new CovariateAdjust(covariatesById, owner.names), slopes);
+        }
+
+        @Override
+        public String kind() {
+            return KIND;
+        }
+
+        @Override
+        public void freeze(org.viewgain.frozen.FrozenOut out) {
+            out.texts(owner.names).matrix(slopes);
+        }
+
+        /** A frozen adjustment read back; it needs the covariates of the cohort it is applied to. */
+        static Adjustment thaw(org.viewgain.frozen.FrozenIn in) {
+            List<String> names = in.texts();
+            double[][] slopes = in.matrix();
+            if (names == null || names.isEmpty() || slopes == null || slopes.length != names.size()
+                    || java.util.Arrays.stream(slopes).anyMatch(r -> r == null || r.length != slopes[0].length)) {
+                throw in.bad("covariate names and slopes differ in count");
+            }
+            return new Adjustment(new CovariateAdjust(Map.of(), names), slopes);
+        }
     }
 }

@@ -17,6 +17,7 @@ public final class FrozenSteps {
             case Standardize.Scaling.KIND -> Standardize.Scaling.thaw(in);
             case SelectTopK.Selection.KIND -> SelectTopK.Selection.thaw(in);
             case ComBatFit.KIND -> ComBatFit.thaw(in);
+            case CovariateAdjust.Adjustment.KIND -> CovariateAdjust.Adjustment.thaw(in);
             default -> throw in.bad("not a step this version can read");
         };
         in.end();
@@ -29,5 +30,16 @@ public final class FrozenSteps {
      */
     public static java.util.SortedSet<String> sites(Transform.Fitted f) {
         return f instanceof ComBatFit c ? c.sites() : new java.util.TreeSet<>();
+    }
+
+    /**
+     * Whether a fitted step reads covariates in the given order: a covariate adjustment with these names, a ComBat
+     * with as many protected covariates; any other step reads none and fits any list.
+     */
+    public static boolean readsCovariates(Transform.Fitted f, java.util.List<String> names) {
+        if (f instanceof CovariateAdjust.Adjustment a) {
+            return a.names().equals(names);
+        }
+        return !(f instanceof ComBatFit c) || c.covariates() == 0 || c.covariates() == names.size();
     }
 }

@@ -30,11 +30,16 @@ public interface Transform {
     }
 
     /**
-     * A fitted step that reads each subject's site (ComBat). Applied to another cohort, it is first given that
-     * cohort's sites; the fitted parameters stay those of the training rows.
+     * A fitted step that reads each subject's site or covariates (ComBat, covariate adjustment). Applied to another
+     * cohort, it is first given that cohort's; the fitted parameters stay those of the training rows.
      */
-    interface BySite {
-        /** The same fitted step, reading sites from {@code siteById} (subject id to site). */
-        Fitted withSites(java.util.Map<String, String> siteById);
+    interface PerSubject {
+        /**
+         * The same fitted step, reading subjects' sites and covariates from these maps.
+         *
+         * @param siteById       subject id to site
+         * @param covariatesById subject id to covariate values, in the order the step was fitted with
+         */
+        Fitted forCohort(java.util.Map<String, String> siteById, java.util.Map<String, double[]> covariatesById);
     }
 }

@@ -329,4 +329,49 @@ class IndependentCohortTest {
         assertTrue(o.err().strip().lines().count() == 1 && o.err().contains(": site: required"), o.err());
         assertFalse(Files.exists(dir.resolve("a2")));
     }
+
+    /** Adds an {@code age} column (invented values from the subject's position) to a subjects table. */
+    static void addAge(Path subjects) throws IOException {
+        List<String> lines = new java.util.ArrayList<>(Files.readAllLines(subjects));
+        lines.set(0, lines.get(0) + ",age");
+        for (int i = 1; i < lines.size(); i++) {
+            lines.set(i, lines.get(i) + "," + (40 + (i * 7) % 31));
+        }
+        Files.write(subjects, lines);
+    }
+
+    /**
+     * Covariate adjustment and ComBat with age as a protected covariate, in a bundle: the independent cohort's own
+     * ages are read from its subjects table (the same column name), and {@code apply} gives the run's tables byte for
+     * byte. A cohort without the column is refused with one line naming the file and the column.
+     */
+    @Test
+    void givenCovariateAdjustment_whenRunAndApplied_thenSameTablesAndAMissingColumnRefused() throws IOException {
+        Path spec = cohorts(1.0, 90, 60);
+        addAge(dir.resolve("dev/subjects.csv"));
+        addAge(dir.resolve("ext/subjects.csv"));
+        Files.writeString(spec, SPEC.replace("site: site }", "site: site, covariates: [age] }")
+                .replace("validation:", "features: { adjust: [age], harmonize: combat }\nvalidation:"));
+        Path run = run(spec, "out");
+        com.fasterxml.jackson.databind.JsonNode m = new com.fasterxml.jackson.databind.ObjectMapper()
+                .readTree(run.resolve("bundle/manifest.json").toFile());
+        assertEquals("[\"age\"]", m.get("shape").get("covariates").toString());
+        assertEquals(3, m.get("pipelines").get(0).get("steps").size(), "adjust, combat, standardize");
+        Path cohort = Files.writeString(dir.resolve("cohort.yaml"), COHORT);
+        CliTest.Outcome o = CliTest.run("apply", run.resolve("bundle").toString(), cohort.toString(), "--out",
+                dir.resolve("applied").toString());
+        assertEquals(0, o.code(), o.err());
+        for (String t : List.of("external_predictions.csv", "external_metrics.csv", "external_comparisons.csv")) {
+            assertEquals(Files.readString(run.resolve(t)), Files.readString(dir.resolve("applied").resolve(t)), t);
+        }
+        Path subjects = dir.resolve("ext/subjects.csv");
+        Files.write(subjects, Files.readAllLines(subjects).stream().map(l -> l.substring(0, l.lastIndexOf(',')))
+                .toList());
+        o = CliTest.run("apply", run.resolve("bundle").toString(), cohort.toString(), "--out",
+                dir.resolve("a1").toString());
+        assertEquals(2, o.code(), o.err());
+        assertTrue(o.err().strip().lines().count() == 1 && o.err().contains("subjects.csv")
+                && o.err().contains("'age'"), o.err());
+        assertFalse(Files.exists(dir.resolve("a1")));
+    }
 }

@@ -198,8 +198,8 @@ class ComBatTest {
         assertEquals(java.util.Set.of("A", "B"), FrozenSteps.sites(thawed));
         Map<String, String> newSites = Map.of("n1", "B", "n2", "A", "n3", "B");
         Rows fresh = rows(List.of("n1", "n2", "n3"), new double[][] {{3.3, 14.1, 8.2}, X[1].clone(), {0, 0, 0}});
-        Rows live = fitted.withSites(newSites).apply(fresh);
-        Rows back = ((Transform.BySite) thawed).withSites(newSites).apply(fresh);
+        Rows live = fitted.forCohort(newSites, Map.of()).apply(fresh);
+        Rows back = ((Transform.PerSubject) thawed).forCohort(newSites, Map.of()).apply(fresh);
         for (int i = 0; i < 3; i++) {
             for (int g = 0; g < 3; g++) {
                 assertEquals(Double.doubleToRawLongBits(live.x()[i][g]), Double.doubleToRawLongBits(back.x()[i][g]),
@@ -212,9 +212,51 @@ class ComBatTest {
         }
         Rows unseen = rows(List.of("n4"), new double[][] {{1, 2, 3}});
         IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
-                () -> ((Transform.BySite) thawed).withSites(Map.of("n4", "C")).apply(unseen));
+                () -> ((Transform.PerSubject) thawed).forCohort(Map.of("n4", "C"), Map.of()).apply(unseen));
         assertTrue(e.getMessage().contains("'C'") && e.getMessage().contains("'n4'"), e.getMessage());
         assertThrows(IllegalArgumentException.class, () -> thawed.apply(unseen),
                 "a thawed fit knows no subject's site until it is given a cohort's");
+    }
+
+    /**
+     * ComBat with a protected covariate, frozen and read back: new subjects are harmonized with the training slopes
+     * and site parameters and their own covariate values, bit for bit as the fit in memory (simulated sites and ages,
+     * invented data, seed 4).
+     */
+    @Test
+    void givenAFrozenFitWithACovariate_whenThawed_thenTheNewCohortsCovariatesAreUsed() {
+        Random random = new Random(4);
+        List<String> ids = new ArrayList<>();
+        Map<String, String> sites = new HashMap<>();
+        Map<String, double[]> ages = new HashMap<>();
+        double[][] x = new double[30][4];
+        for (int i = 0; i < 30; i++) {
+            ids.add("s" + i);
+            sites.put("s" + i, i % 3 == 0 ? "C" : i % 3 == 1 ? "A" : "B");
+            double age = 30 + 30 * random.nextDouble();
+            ages.put("s" + i, new double[] {age});
+            for (int g = 0; g < 4; g++) {
+                x[i][g] = g + 0.05 * age + (i % 3) + (1 + i % 3) * random.nextGaussian();
+            }
+        }
+        List<String> names = List.of("f1", "f2", "f3", "f4");
+        ComBatFit fitted = (ComBatFit) new ComBat(sites, ages).fit(CTX, new Rows(ids, x, names), new int[30]);
+        Transform.Fitted thawed = FrozenSteps.thaw(new org.viewgain.frozen.FrozenIn("test",
+                org.viewgain.frozen.FrozenOut.of(fitted)));
+        assertTrue(FrozenSteps.readsCovariates(thawed, List.of("age")));
+        Map<String, String> newSites = Map.of("n1", "A", "n2", "C");
+        Map<String, double[]> newAges = Map.of("n1", new double[] {44}, "n2", new double[] {71});
+        Rows fresh = new Rows(List.of("n1", "n2"), new double[][] {{1, 2, 3, 4}, {-1, 0.5, 2, 9}}, names);
+        Rows live = fitted.forCohort(newSites, newAges).apply(fresh);
+        Rows back = ((Transform.PerSubject) thawed).forCohort(newSites, newAges).apply(fresh);
+        Rows olderN1 = ((Transform.PerSubject) thawed).forCohort(newSites,
+                Map.of("n1", new double[] {64}, "n2", new double[] {71})).apply(fresh);
+        for (int i = 0; i < 2; i++) {
+            for (int g = 0; g < 4; g++) {
+                assertEquals(Double.doubleToRawLongBits(live.x()[i][g]), Double.doubleToRawLongBits(back.x()[i][g]));
+            }
+        }
+        assertTrue(olderN1.x()[0][0] != back.x()[0][0], "the new subject's own age is read");
+        assertEquals(back.x()[1][0], olderN1.x()[1][0], 0.0, "another subject's age does not change n2");
     }
 }

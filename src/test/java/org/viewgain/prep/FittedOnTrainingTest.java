@@ -122,4 +122,38 @@ class FittedOnTrainingTest {
         IllegalArgumentException e = assertThrows(IllegalArgumentException.class, () -> fitted.apply(test));
         assertTrue(e.getMessage().contains("'nobody'"), e.getMessage());
     }
+
+    /**
+     * A frozen covariate adjustment read back applies the training slope to a new cohort's subjects with their own
+     * covariates: the case above by hand (slope 2; age 50, value 0 becomes -100), and bit for bit as the fit in
+     * memory given the same cohort.
+     */
+    @Test
+    void givenAFrozenAdjustment_whenThawedAndGivenANewCohort_thenTheTrainingSlopeIsApplied() {
+        Map<String, double[]> age = new HashMap<>();
+        double[][] train = new double[4][];
+        for (int i = 0; i < 4; i++) {
+            train[i] = new double[] {10 + 2 * (20 + i), 3 - 0.5 * (20 + i)};
+            age.put("t" + i, new double[] {20 + i});
+        }
+        Rows tr = new Rows(List.of("t0", "t1", "t2", "t3"), train, List.of("f", "g"));
+        Transform.Fitted fitted = new CovariateAdjust(age, List.of("age")).fit(CTX, tr, new int[4]);
+        Transform.Fitted thawed = FrozenSteps.thaw(new org.viewgain.frozen.FrozenIn("test",
+                org.viewgain.frozen.FrozenOut.of((org.viewgain.frozen.Freezable) fitted)));
+        assertTrue(FrozenSteps.readsCovariates(thawed, List.of("age")));
+        assertTrue(!FrozenSteps.readsCovariates(thawed, List.of("sex")), "another covariate list does not fit");
+        Map<String, double[]> newAges = Map.of("x", new double[] {50}, "y", new double[] {31.5});
+        Rows test = new Rows(List.of("x", "y"), new double[][] {{0, 0}, {7.25, -1}}, List.of("f", "g"));
+        Rows back = ((Transform.PerSubject) thawed).forCohort(Map.of(), newAges).apply(test);
+        Rows live = ((Transform.PerSubject) fitted).forCohort(Map.of(), newAges).apply(test);
+        assertEquals(-100, back.x()[0][0], 1e-9);
+        assertEquals(25, back.x()[0][1], 1e-9);
+        for (int i = 0; i < 2; i++) {
+            for (int j = 0; j < 2; j++) {
+                assertEquals(Double.doubleToRawLongBits(live.x()[i][j]), Double.doubleToRawLongBits(back.x()[i][j]));
+            }
+        }
+        assertThrows(IllegalArgumentException.class, () -> thawed.apply(test),
+                "a thawed adjustment knows no subject's covariates until it is given a cohort's");
+    }
 }
