@@ -30,7 +30,7 @@ final class FinalChecks {
                         ? " (its imputations come from a file, which has no rows for new subjects)" : "";
                 problems.add(path(spec.imputers(), imp.name(), "imputers"), "imputer '" + imp.name() + "' (method "
                         + imp.method().method() + ") cannot be frozen into a bundle" + extra + " (" + why
-                        + "); bundles hold mean, nearest-neighbours and ridge");
+                        + "); bundles hold mean, nearest-neighbours, ridge, pls and multi-kernel-neighbours");
             }
         }
         for (Resolved.Classifier c : classifiers) {

@@ -7,8 +7,8 @@ import org.viewgain.frozen.FrozenIn;
 import org.viewgain.frozen.FrozenOut;
 
 /**
- * The fitted imputers that can be frozen into a bundle ({@code mean}, {@code nearest-neighbours}, {@code ridge}),
- * each holding what it needs to impute, and their readers. A thawed imputer runs the same arithmetic on the same
+ * The fitted imputers that can be frozen into a bundle ({@code mean}, {@code nearest-neighbours}, {@code ridge},
+ * {@code pls}, {@code multi-kernel-neighbours}), each holding what it needs to impute, and their readers. A thawed imputer runs the same arithmetic on the same
  * numbers as the fitted one, so it imputes bit for bit the same.
  */
 public final class FrozenImputers {
@@ -26,6 +26,10 @@ public final class FrozenImputers {
             case Neighbours.KIND -> new Neighbours(in.matrix(), in.matrix(), in.integer(), in.integer() == 1);
             case RidgePrimal.KIND -> new RidgePrimal(in.numbers(), in.numbers(), in.matrix());
             case RidgeDual.KIND -> new RidgeDual(in.numbers(), in.numbers(), in.matrix(), in.matrix());
+            case Pls.KIND -> new Pls(new SimplsModel(in.numbers(), in.numbers(), in.matrix(), in.matrix(), null),
+                    in.integer());
+            case MultiKernel.KIND -> new MultiKernel(in.numbers(), in.matrix(), LocalScaleKernels.thaw(in),
+                    in.numbers(), in.integer(), in.matrix(), in.integer());
             default -> throw in.bad("not an imputer this version can read");
         };
         in.end();
@@ -126,6 +130,54 @@ public final class FrozenImputers {
         @Override
         public void freeze(FrozenOut out) {
             out.numbers(mx).numbers(my).matrix(xc).matrix(a);
+        }
+    }
+
+    /** PLS (SIMPLS): means, weights and loadings; the training scores are not needed to predict and not kept. */
+    record Pls(SimplsModel model, int p) implements ViewImputer.Fitted, Freezable {
+        static final String KIND = "imputer-pls";
+
+        @Override
+        public double[][] impute(FitContext ctx, Rows rows) {
+            Shapes.checkWidth(PlsImputer.METHOD, rows, p);
+            return model.predict(rows.x());
+        }
+
+        @Override
+        public String kind() {
+            return KIND;
+        }
+
+        @Override
+        public void freeze(FrozenOut out) {
+            out.numbers(model.xMeans()).numbers(model.yMeans()).matrix(model.weights()).matrix(model.loadings())
+                    .integer(p);
+        }
+    }
+
+    /**
+     * Multi-kernel neighbours: the centring, the centred training sources, their local kernel scales, the learned
+     * kernel weights, the neighbour count and the training targets.
+     */
+    record MultiKernel(double[] centre, double[][] train, LocalScaleKernels kernels, double[] weights, int k,
+                       double[][] y, int q) implements ViewImputer.Fitted, Freezable {
+        static final String KIND = "imputer-multi-kernel-neighbours";
+
+        @Override
+        public double[][] impute(FitContext ctx, Rows rows) {
+            return MultiKernelNeighboursImputer.impute(rows, centre, train, kernels, weights, k, y, q);
+        }
+
+        @Override
+        public String kind() {
+            return KIND;
+        }
+
+        @Override
+        public void freeze(FrozenOut out) {
+            out.numbers(centre).matrix(train);
+            kernels.freeze(out);
+            out.numbers(weights).integer(k).matrix(y).integer(q);
         }
     }
 }

@@ -23,6 +23,22 @@ final class LocalScaleKernels {
         this.floor = floor;
     }
 
+    /** Writes the local scales into a bundle part ({@link #thaw} reads them back). */
+    void freeze(org.viewgain.frozen.FrozenOut out) {
+        out.integers(ks).matrix(mu).number(floor);
+    }
+
+    /** Local scales read back from a bundle part. */
+    static LocalScaleKernels thaw(org.viewgain.frozen.FrozenIn in) {
+        int[] ks = in.integers();
+        double[][] mu = in.matrix();
+        double floor = in.number();
+        if (ks == null || mu == null || ks.length != mu.length) {
+            throw in.bad("neighbour counts and local scales differ in count");
+        }
+        return new LocalScaleKernels(ks, mu, floor);
+    }
+
     /** The local scales of the training subjects, from their squared distances to each other. */
     static LocalScaleKernels of(double[][] sqDist) {
         int n = sqDist.length;

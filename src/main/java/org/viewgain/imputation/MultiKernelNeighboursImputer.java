@@ -50,30 +50,49 @@ public final class MultiKernelNeighboursImputer implements ViewImputer {
         MultiKernelSimilarity.Result learned = MultiKernelSimilarity.learn(kernels.trainingKernels(sq),
                 params.getInt("neighbours"), params.getInt("rank"), params.getInt("iterations"));
         int k = Math.min(params.getInt("neighbours"), source.n());
-        double[][] y = target.x();
-        int q = target.p();
-        return new Learned(learned, (c, rows) -> {
-            Shapes.checkWidth(METHOD, rows, p);
-            double[][] sqNew = LocalScaleKernels.squaredDistances(Centring.centre(rows.x(), centre), train);
-            double[][] out = new double[rows.n()][];
-            for (int i = 0; i < out.length; i++) {
-                double[] sim = kernels.similarityToTraining(sqNew[i], learned.weights());
-                int[] top = Neighbours.largest(sim, k);
-                double[] w = new double[top.length];
-                for (int h = 0; h < top.length; h++) {
-                    w[h] = sim[top[h]];
-                }
-                out[i] = Neighbours.weightedMean(top, w, y, q);
-            }
-            return out;
-        });
+        return new Learned(learned, new FrozenImputers.MultiKernel(centre, train, kernels, learned.weights(), k,
+                target.x(), target.p()));
     }
 
-    /** A fit that also shows what it learned, for tests. */
-    record Learned(MultiKernelSimilarity.Result learned, Fitted predictor) implements Fitted {
+    /** The imputations of new rows: similarity-weighted means of the targets of their most similar subjects. */
+    static double[][] impute(Rows rows, double[] centre, double[][] train, LocalScaleKernels kernels,
+                             double[] weights, int k, double[][] y, int q) {
+        Shapes.checkWidth(METHOD, rows, centre.length);
+        double[][] sqNew = LocalScaleKernels.squaredDistances(Centring.centre(rows.x(), centre), train);
+        double[][] out = new double[rows.n()][];
+        for (int i = 0; i < out.length; i++) {
+            double[] sim = kernels.similarityToTraining(sqNew[i], weights);
+            int[] top = Neighbours.largest(sim, k);
+            double[] w = new double[top.length];
+            for (int h = 0; h < top.length; h++) {
+                w[h] = sim[top[h]];
+            }
+            out[i] = Neighbours.weightedMean(top, w, y, q);
+        }
+        return out;
+    }
+
+    @Override
+    public boolean freezable() {
+        return true;
+    }
+
+    /** A fit that also shows what it learned, for tests; it freezes as its predictor. */
+    record Learned(MultiKernelSimilarity.Result learned, FrozenImputers.MultiKernel predictor)
+            implements Fitted, org.viewgain.frozen.Freezable {
         @Override
         public double[][] impute(FitContext ctx, Rows source) {
             return predictor.impute(ctx, source);
+        }
+
+        @Override
+        public String kind() {
+            return predictor.kind();
+        }
+
+        @Override
+        public void freeze(org.viewgain.frozen.FrozenOut out) {
+            predictor.freeze(out);
         }
 
         /** The learned training similarity (rows sum to 1). */

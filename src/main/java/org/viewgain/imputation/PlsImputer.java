@@ -33,14 +33,12 @@ public final class PlsImputer implements ViewImputer {
         Shapes.checkTraining(METHOD, source, target);
         SimplsModel model = Simpls.fit(source.x(), target.x(), source.p(), target.p(),
                 params.getInt("components"));
-        int p = source.p();
-        return new Fitted() {
-            @Override
-            public double[][] impute(FitContext c, Rows rows) {
-                Shapes.checkWidth(METHOD, rows, p);
-                return model.predict(rows.x());
-            }
-        };
+        return new FrozenImputers.Pls(model, source.p());
+    }
+
+    @Override
+    public boolean freezable() {
+        return true;
     }
 
     /** The SIMPLS model behind a fit, for tests of its scores and weights. */

@@ -18,8 +18,8 @@ import org.viewgain.testing.TestCohorts;
 /**
  * The bundle round trip at the level that matters: the final pipelines as trained in memory (never frozen) predict
  * an independent cohort bit for bit as the pipelines read back from a bundle written to disk. Every freezable kind
- * is in the spec: standardize and t-test selection steps, the mean, nearest-neighbours and ridge imputers, and the three
- * freezable classifiers. The independent cohort reuses the development cohort's subject ids with other values, so
+ * is in the spec: standardize and t-test selection steps, the mean, nearest-neighbours, ridge, pls and multi-kernel
+ * imputers, and the three freezable classifiers (ComBat and covariate adjustment: IndependentCohortTest). The independent cohort reuses the development cohort's subject ids with other values, so
  * the nearest-neighbours imputer's shared distance table must not be read for them (invented data, a simulation).
  */
 class FinalPipelineRoundTripTest {
@@ -37,6 +37,8 @@ class FinalPipelineRoundTripTest {
                   - { name: avg, method: mean }
                   - { name: knn, method: nearest-neighbours, grid: { k: [3, 7] } }
                   - { name: ridge, method: ridge, grid: { alpha: [1, 100] } }
+                  - { name: pls, method: pls, grid: { components: [1, 2] } }
+                  - { name: mkn, method: multi-kernel-neighbours, fixed: { neighbours: 5 } }
                 feature-sets: [source, source+imputed]
                 classifiers:
                   - { name: forest, method: random-forest, fixed: { trees: 25 } }
@@ -73,7 +75,7 @@ class FinalPipelineRoundTripTest {
         List<FrozenPipeline> read = Bundle.read(dir.resolve("bundle")).pipelines();
 
         assertEquals(live.size(), read.size());
-        assertEquals(3 * 4, live.size(), "source x 3 classifiers + source+imputed x 3 imputers x 3 classifiers");
+        assertEquals(3 * 6, live.size(), "source x 3 classifiers + source+imputed x 5 imputers x 3 classifiers");
         int scored = 0;
         for (int k = 0; k < live.size(); k++) {
             assertEquals(live.get(k).pipeline(), read.get(k).pipeline());

@@ -102,4 +102,34 @@ class LearnedImputersTest {
         }
         return c;
     }
+
+    /**
+     * Every imputer but {@code external} can be frozen into a bundle, and the one read back imputes new subjects bit
+     * for bit as the fitted one (Breast Cancer Wisconsin, Wolberg et al. 1995, as above; ridge with a small and a
+     * large training set, so that both its primal and its dual form are frozen).
+     */
+    @ParameterizedTest
+    @ValueSource(strings = {"mean", "nearest-neighbours", "ridge", "pls", "multi-kernel-neighbours"})
+    void givenAFittedImputer_whenFrozenAndReadBack_thenItImputesBitForBitTheSame(String method) {
+        ViewImputer m = ImputerRegistry.byMethod(method);
+        assertTrue(m.freezable(), method);
+        assertTrue(!ImputerRegistry.byMethod(ExternalImputer.METHOD).freezable());
+        Fixtures.Split split = Fixtures.breastCancer(2026);
+        for (int n : new int[] {8, split.trainSource().n()}) {
+            Rows src = head(split.trainSource(), n);
+            Rows tgt = head(split.trainTarget(), n);
+            ViewImputer.Fitted fitted = m.fit(Fixtures.CTX, src, tgt, m.resolve(Map.of()));
+            byte[] part = org.viewgain.frozen.FrozenOut.of((org.viewgain.frozen.Freezable) fitted);
+            ViewImputer.Fitted back = FrozenImputers.thaw(new org.viewgain.frozen.FrozenIn(method, part));
+            double[][] a = fitted.impute(Fixtures.CTX, split.testSource());
+            double[][] b = back.impute(Fixtures.CTX, split.testSource());
+            for (int i = 0; i < a.length; i++) {
+                assertArrayEquals(a[i], b[i], 0.0, method + " n=" + n + " subject " + i);
+            }
+        }
+    }
+
+    private static Rows head(Rows r, int n) {
+        return new Rows(r.ids().subList(0, n), java.util.Arrays.copyOf(r.x(), n), r.featureNames());
+    }
 }
