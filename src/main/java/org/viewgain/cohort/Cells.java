@@ -38,33 +38,56 @@ final class Cells {
      * cells per subject, and matching each with the pattern took most of the time of reading a cohort.
      */
     static boolean isDecimal(String cell) {
-        int n = cell.length();
-        int i = sign(cell, 0);
-        int afterInt = digits(cell, i);
-        int afterFrac = afterInt < n && cell.charAt(afterInt) == '.' ? digits(cell, afterInt + 1) : afterInt;
+        return isDecimal(cell, 0, cell.length());
+    }
+
+    /** Whether the characters {@code from} (inclusive) to {@code to} (exclusive) of {@code s} match {@link #DECIMAL}. */
+    static boolean isDecimal(CharSequence s, int from, int to) {
+        int i = sign(s, from, to);
+        int afterInt = digits(s, i, to);
+        int afterFrac = afterInt < to && s.charAt(afterInt) == '.' ? digits(s, afterInt + 1, to) : afterInt;
         boolean mantissa = afterInt > i || afterFrac > afterInt + 1;
         if (!mantissa) {
             return false;
         }
-        if (afterFrac < n && (cell.charAt(afterFrac) == 'e' || cell.charAt(afterFrac) == 'E')) {
-            int e = sign(cell, afterFrac + 1);
-            int afterExp = digits(cell, e);
-            return afterExp > e && afterExp == n;
+        if (afterFrac < to && (s.charAt(afterFrac) == 'e' || s.charAt(afterFrac) == 'E')) {
+            int e = sign(s, afterFrac + 1, to);
+            int afterExp = digits(s, e, to);
+            return afterExp > e && afterExp == to;
         }
-        return afterFrac == n;
+        return afterFrac == to;
     }
 
     /** The position after an optional sign at {@code i}. */
-    private static int sign(String s, int i) {
-        return i < s.length() && (s.charAt(i) == '+' || s.charAt(i) == '-') ? i + 1 : i;
+    private static int sign(CharSequence s, int i, int to) {
+        return i < to && (s.charAt(i) == '+' || s.charAt(i) == '-') ? i + 1 : i;
     }
 
     /** The position after the ASCII digits from {@code i} ({@code \d} of {@link #DECIMAL} is ASCII). */
-    private static int digits(String s, int i) {
-        while (i < s.length() && s.charAt(i) >= '0' && s.charAt(i) <= '9') {
+    private static int digits(CharSequence s, int i, int to) {
+        while (i < to && s.charAt(i) >= '0' && s.charAt(i) <= '9') {
             i++;
         }
         return i;
+    }
+
+    /**
+     * The finite value of the characters {@code from} to {@code to} of {@code s}, surrounding whitespace removed as
+     * {@link String#strip} does, or NaN when they are not a number or not finite: {@link #finiteOrNaN} without
+     * making a String (the same value: both parsers round correctly; checked in tests).
+     */
+    static double finiteOrNaN(CharSequence s, int from, int to) {
+        while (from < to && Character.isWhitespace(s.charAt(from))) {
+            from++;
+        }
+        while (to > from && Character.isWhitespace(s.charAt(to - 1))) {
+            to--;
+        }
+        if (!isDecimal(s, from, to)) {
+            return Double.NaN;
+        }
+        double v = ch.randelshofer.fastdoubleparser.JavaDoubleParser.parseDouble(s, from, to - from);
+        return Double.isFinite(v) ? v : Double.NaN;
     }
 
     /** What is wrong with a cell for which {@link #finiteOrNaN} gave NaN, for messages. */

@@ -82,31 +82,55 @@ final class CsvText {
         int line = 1;
         int start = 0;
         while (start <= n) {
-            int end = start;
-            while (end < n && text.charAt(end) != '\n' && text.charAt(end) != '\r') {
-                end++;
-            }
-            List<String> cells = new ArrayList<>();
-            boolean blank = true;
-            int from = start;
-            for (int c = start; c <= end; c++) {
-                if (c == end || text.charAt(c) == ',') {
-                    String cell = text.substring(from, c).strip();
-                    blank &= cell.isEmpty();
-                    cells.add(cell);
-                    from = c + 1;
-                }
-            }
-            if (!blank) {
-                rows.add(new Row(line, cells));
+            int end = lineEnd(text, start);
+            if (!blank(text, start, end)) {
+                rows.add(new Row(line, cells(text, start, end)));
             }
             if (end >= n) {
                 break;
             }
-            start = end + (text.charAt(end) == '\r' && end + 1 < n && text.charAt(end + 1) == '\n' ? 2 : 1);
+            start = nextLine(text, end);
             line++;
         }
         return rows;
+    }
+
+    /** The end (exclusive) of the line that starts at {@code start}: the next CR or LF, or the end of the text. */
+    static int lineEnd(String text, int start) {
+        int end = start;
+        while (end < text.length() && text.charAt(end) != '\n' && text.charAt(end) != '\r') {
+            end++;
+        }
+        return end;
+    }
+
+    /** The start of the line after the line break at {@code end} (CR LF counts as one). */
+    static int nextLine(String text, int end) {
+        return end + (text.charAt(end) == '\r' && end + 1 < text.length() && text.charAt(end + 1) == '\n' ? 2 : 1);
+    }
+
+    /** Whether every cell of a quote-free line is empty after stripping (such lines are skipped). */
+    static boolean blank(String text, int start, int end) {
+        for (int c = start; c < end; c++) {
+            char ch = text.charAt(c);
+            if (ch != ',' && !Character.isWhitespace(ch)) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    /** The stripped comma-separated cells of a quote-free line. */
+    static List<String> cells(String text, int start, int end) {
+        List<String> cells = new ArrayList<>();
+        int from = start;
+        for (int c = start; c <= end; c++) {
+            if (c == end || text.charAt(c) == ',') {
+                cells.add(text.substring(from, c).strip());
+                from = c + 1;
+            }
+        }
+        return cells;
     }
 
     /** RFC 4180 records of text with quotes, by Apache Commons CSV. */

@@ -61,6 +61,96 @@ final class MatrixFile {
 
     private static Parsed parse(String where, String view, String subject, Path file, String text,
                                 double symmetryTolerance) {
+        Parsed fast = text.indexOf(',') >= 0 && text.indexOf('"') < 0
+                ? commaSeparated(where, subject, file, text, symmetryTolerance) : null;
+        return fast != null ? fast : general(where, view, subject, file, text, symmetryTolerance);
+    }
+
+    /**
+     * The common case without a String per cell: comma-separated text without quotes, every data cell a finite
+     * number in plain notation, rows as wide as there are rows, symmetric within the tolerance. Rows, cells and
+     * blank lines are those of {@link CsvText#splitCommas}. Anything else returns null, and {@link #general} reads
+     * the file and words the error: for every text the two give the same result (checked in tests).
+     */
+    static Parsed commaSeparated(String where, String subject, Path file, String text, double symmetryTolerance) {
+        int n = text.length();
+        int start = 0;
+        int line = 1;
+        CsvText.Row header = null;
+        boolean first = true;
+        int skip = 0;
+        int width = -1;
+        List<double[]> rows = new ArrayList<>();
+        List<String> rowNames = null;
+        while (start <= n) {
+            int end = CsvText.lineEnd(text, start);
+            if (!CsvText.blank(text, start, end)) {
+                if (first) {
+                    first = false;
+                    CsvText.Row r = new CsvText.Row(line, CsvText.cells(text, start, end));
+                    if (isHeader(r)) {
+                        header = r;
+                        start = end < n ? CsvText.nextLine(text, end) : n + 1;
+                        line++;
+                        continue;
+                    }
+                }
+                if (width < 0) {
+                    List<String> cells = CsvText.cells(text, start, end);
+                    skip = Cells.isName(cells.get(0)) ? 1 : 0;
+                    width = cells.size() - skip;
+                    rowNames = skip == 1 ? new ArrayList<>() : null;
+                }
+                double[] values = new double[Math.max(width, 0)];
+                int col = 0;
+                int from = start;
+                for (int c = start; c <= end; c++) {
+                    if (c == end || text.charAt(c) == ',') {
+                        if (col < skip) {
+                            rowNames.add(text.substring(from, c).strip());
+                        } else {
+                            if (col - skip >= width) {
+                                return null;
+                            }
+                            double v = Cells.finiteOrNaN(text, from, c);
+                            if (Double.isNaN(v)) {
+                                return null;
+                            }
+                            values[col - skip] = v;
+                        }
+                        col++;
+                        from = c + 1;
+                    }
+                }
+                if (col - skip != width) {
+                    return null;
+                }
+                rows.add(values);
+            }
+            if (end >= n) {
+                break;
+            }
+            start = CsvText.nextLine(text, end);
+            line++;
+        }
+        int size = rows.size();
+        if (size < 2 || width != size) {
+            return null;
+        }
+        double[][] m = rows.toArray(new double[0][]);
+        for (int i = 0; i < size; i++) {
+            for (int j = i + 1; j < size; j++) {
+                if (!(Math.abs(m[i][j] - m[j][i]) <= symmetryTolerance)) {
+                    return null;
+                }
+            }
+        }
+        return new Parsed(file, subject, names(where, header, rowNames, size), m);
+    }
+
+    /** Any matrix text: rows of cells first, then the checks, each problem worded with its line and column. */
+    static Parsed general(String where, String view, String subject, Path file, String text,
+                          double symmetryTolerance) {
         List<CsvText.Row> rows = text.indexOf(',') >= 0
                 ? CsvText.parse(text, file, "view " + view + " matrix file for subject " + subject)
                 : CsvText.splitWhitespace(text);

@@ -81,7 +81,7 @@ public record FrozenPipeline(Pipeline pipeline, CohortShape shape, ViewImputer.F
             Rows x = rows(d, chunk, imputedForEveryone, names);
             names = x.featureNames();
             for (Transform.Fitted s : applied) {
-                x = s.apply(x);
+                x = s.applyInPlace(x); // the chunk's rows were built for this pass alone
             }
             Predictions pr = model.predict(x);
             for (int t = 0; t < chunk.length; t++) {

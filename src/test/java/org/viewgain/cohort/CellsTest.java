@@ -50,4 +50,36 @@ class CellsTest {
         // both outcomes occur, so the comparison is not degenerate
         assertTrue(numbers >= 8 && numbers <= cells.size() - 8, "numbers among the cells: " + numbers);
     }
+
+    /** Decimal numbers of 1 to 25 significant digits with exponents from -350 to 350, some with whitespace. */
+    @Provide
+    Arbitrary<String> decimals() {
+        Arbitrary<String> digits = Arbitraries.strings().withChars("0123456789").ofMinLength(1).ofMaxLength(25);
+        Arbitrary<String> sign = Arbitraries.of("", "-", "+");
+        Arbitrary<String> exponent = Arbitraries.oneOf(Arbitraries.just(""),
+                Arbitraries.integers().between(-350, 350).map(e -> "e" + e));
+        Arbitrary<String> pad = Arbitraries.of("", "", " ", "\t", " \u2003");
+        return net.jqwik.api.Combinators.combine(sign, digits, Arbitraries.integers().between(0, 25), exponent, pad)
+                .as((sg, d, dot, e, p) -> p + sg + (dot >= d.length() ? d : d.substring(0, dot) + "." + d.substring(dot))
+                        + e + p);
+    }
+
+    /**
+     * The allocation-free value of a cell inside a longer text (fastdoubleparser) equals {@code Double.parseDouble}
+     * of the stripped cell bit for bit (the reference: Java's own correctly rounded parser), including values that
+     * overflow or underflow.
+     */
+    @Property(tries = 20000, seed = "1502", edgeCases = EdgeCasesMode.NONE)
+    void givenDecimalText_whenParsedInPlace_thenTheSameDoubleAsJavasParser(@ForAll("decimals") String cell) {
+        String stripped = cell.strip();
+        double expected = Cells.DECIMAL.matcher(stripped).matches() ? Double.parseDouble(stripped) : Double.NaN;
+        expected = Double.isFinite(expected) ? expected : Double.NaN;
+        Statistics.label("finite").collect(!Double.isNaN(expected));
+        Statistics.label("finite").coverage(c -> c.check(true).percentage(p -> p > 50));
+        String text = "1.5," + cell + ",x";
+        double got = Cells.finiteOrNaN(text, 4, 4 + cell.length());
+        assertEquals(Double.doubleToRawLongBits(expected), Double.doubleToRawLongBits(got), () -> "cell '" + cell
+                + "'");
+        assertEquals(Double.doubleToRawLongBits(Cells.finiteOrNaN(stripped)), Double.doubleToRawLongBits(got));
+    }
 }
