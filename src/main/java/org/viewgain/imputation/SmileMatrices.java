@@ -12,6 +12,13 @@ import smile.math.matrix.Matrix;
  * so the imputers work on plain {@code double[][]} row-major arrays.
  */
 final class SmileMatrices {
+    static {
+        // viewgain already runs its work units on --threads threads; OpenBLAS's own threads on top of them waited
+        // for work by spinning in the kernel, which on 2 cores cost as much sys time as a third of the user time
+        // (docs/benchmarks.md, "Native BLAS on one thread")
+        org.bytedeco.openblas.global.openblas.blas_set_num_threads(1);
+    }
+
     private SmileMatrices() {
     }
 
