@@ -15,7 +15,6 @@ import org.viewgain.imputation.ExternalImputer;
 import org.viewgain.prep.Transform;
 import org.viewgain.spec.FeatureSet;
 import org.viewgain.spec.Params;
-import org.viewgain.stats.ClassificationMetrics;
 
 /**
  * Trains and tests one pipeline in one outer fold: grid search by inner cross-validation on the outer training
@@ -257,7 +256,7 @@ final class ClassifierStage {
         String tuneBy = ex.spec().validation().tuneByColumn();
         double[] out = new double[points.size()];
         for (int g = 0; g < points.size(); g++) {
-            double v = metrics(yTrain, pred[g], haveScores[g] ? scores[g] : null, classes).get(tuneBy);
+            double v = Evaluation.of(ex, yTrain, pred[g], haveScores[g] ? scores[g] : null).get(tuneBy);
             out[g] = Double.isNaN(v) ? Double.NEGATIVE_INFINITY : v;
         }
         return out;
@@ -275,26 +274,6 @@ final class ClassifierStage {
     static boolean nestedImputation(Experiment ex, Pipeline p) {
         return p.featureSet().needsImputer()
                 && !ExternalImputer.METHOD.equals(ex.imputer(p.imputer()).method().method());
-    }
-
-    Map<String, Double> metrics(int[] truth, int[] pred, double[][] scores, int classes) {
-        return metrics(ex, truth, pred, scores, classes);
-    }
-
-    /** Metrics of one set of predictions: two-group metrics for the positive group, macro metrics for more. */
-    static Map<String, Double> metrics(Experiment ex, int[] truth, int[] pred, double[][] scores, int classes) {
-        int positive = ex.spec().cohort().positiveIndex();
-        if (classes == 2) {
-            double[] s = null;
-            if (scores != null) {
-                s = new double[truth.length];
-                for (int i = 0; i < s.length; i++) {
-                    s[i] = scores[i][positive];
-                }
-            }
-            return ClassificationMetrics.binary(truth, pred, s, positive);
-        }
-        return ClassificationMetrics.multiclass(truth, pred, scores, classes);
     }
 
     /**

@@ -91,31 +91,61 @@ public final class Evaluation {
         return out;
     }
 
+    /** The metrics of a set of predictions (all NaN for none); scores count only when every prediction has them. */
     static Map<String, Double> compute(Experiment ex, List<RunResults.Prediction> ps) {
         int n = ps.size();
-        int classes = ex.spec().cohort().groups().size();
-        int[] truth = new int[n];
-        int[] pred = new int[n];
-        boolean scores = n > 0;
-        for (int i = 0; i < n; i++) {
-            truth[i] = ps.get(i).truth();
-            pred[i] = ps.get(i).predicted();
-            scores &= ps.get(i).scores() != null;
-        }
         if (n == 0) {
             Map<String, Double> empty = new LinkedHashMap<>();
             ClassificationMetrics.NAMES.forEach(m -> empty.put(m, Double.NaN));
             return empty;
         }
-        if (classes == 2) {
-            double[] s = null;
-            if (scores) {
-                s = ps.stream().mapToDouble(RunResults.Prediction::score).toArray();
-            }
-            return ClassificationMetrics.binary(truth, pred, s, ex.spec().cohort().positiveIndex());
+        int[] truth = new int[n];
+        int[] pred = new int[n];
+        boolean scores = true;
+        for (int i = 0; i < n; i++) {
+            truth[i] = ps.get(i).truth();
+            pred[i] = ps.get(i).predicted();
+            scores &= ps.get(i).scores() != null;
         }
         double[][] all = scores ? ps.stream().map(RunResults.Prediction::scores).toArray(double[][]::new) : null;
-        return ClassificationMetrics.multiclass(truth, pred, all, classes);
+        return of(ex, truth, pred, all);
+    }
+
+    /**
+     * The one computation of metrics from predictions, for the inner folds' tuning, the tables, the permutations and
+     * the sites: two-group metrics for the positive group (its column of {@code scores}), macro metrics for more.
+     *
+     * @param scores scores per subject and class, or null when the classifier gives none
+     */
+    static Map<String, Double> of(Experiment ex, int[] truth, int[] pred, double[][] scores) {
+        int classes = ex.spec().cohort().groups().size();
+        int positive = ex.spec().cohort().positiveIndex();
+        if (classes == 2) {
+            double[] s = null;
+            if (scores != null) {
+                s = new double[truth.length];
+                for (int i = 0; i < s.length; i++) {
+                    s[i] = scores[i][positive];
+                }
+            }
+            return ClassificationMetrics.binary(truth, pred, s, positive);
+        }
+        return ClassificationMetrics.multiclass(truth, pred, scores, classes);
+    }
+
+    /**
+     * The statistic of the permutation test, for the run's labels and for each permutation's alike: the metric of
+     * each repeat's pooled out-of-fold predictions, averaged over the repeats.
+     *
+     * @param ofRepeat the out-of-fold predictions of repeat r
+     */
+    static double pooled(Experiment ex, int repeats, java.util.function.IntFunction<List<RunResults.Prediction>> ofRepeat,
+                         String metric) {
+        double sum = 0;
+        for (int r = 0; r < repeats; r++) {
+            sum += compute(ex, ofRepeat.apply(r)).get(metric);
+        }
+        return sum / repeats;
     }
 
     static double mean(double[] v) {

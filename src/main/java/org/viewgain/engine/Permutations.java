@@ -162,8 +162,7 @@ final class Permutations {
         FoldPlan plan = ex.planFor(labels);
         ClassifierStage stage = new ClassifierStage(ex);
         int m = p.featureSet().needsImputer() ? state.imputerIndex(p.imputer()) : -1;
-        double sum = 0;
-        for (int r = 0; r < plan.repeats(); r++) {
+        return Evaluation.pooled(ex, plan.repeats(), r -> {
             List<RunResults.Prediction> ps = new ArrayList<>();
             for (int f = 0; f < plan.folds(r); f++) {
                 int slot = state.slot(r, f);
@@ -171,9 +170,8 @@ final class Permutations {
                 ps.addAll(stage.run(p, k, plan, r, f, InnerFolds.of(ex, plan, labels, r, f), imputed, labels)
                         .predictions());
             }
-            sum += Evaluation.compute(ex, ps).get(metric);
-        }
-        return sum / plan.repeats();
+            return ps;
+        }, metric);
     }
 
     /**

@@ -330,12 +330,9 @@ public final class Runner {
             if (ex.spec().significance().permutations() > 0) {
                 String metric = ex.spec().significance().metricColumn();
                 List<Double> observed = new ArrayList<>();
+                RunResults run = res;
                 for (Pipeline p : ex.pipelines()) {
-                    double sum = 0;
-                    for (int r = 0; r < plan.repeats(); r++) {
-                        sum += Evaluation.compute(ex, Evaluation.select(res, p, r, -1)).get(metric);
-                    }
-                    observed.add(sum / plan.repeats());
+                    observed.add(Evaluation.pooled(ex, plan.repeats(), r -> Evaluation.select(run, p, r, -1), metric));
                 }
                 res = res.withPermutations(perm.run(observed, t -> invokeAll(pool, t), counter));
             }

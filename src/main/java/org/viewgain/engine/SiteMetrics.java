@@ -74,6 +74,6 @@ public final class SiteMetrics {
             scores[i] = ps.get(i).scores();
             all &= scores[i] != null;
         }
-        return ClassifierStage.metrics(ex, truth, pred, all ? scores : null, classes);
+        return Evaluation.of(ex, truth, pred, all ? scores : null);
     }
 }
