@@ -25,6 +25,8 @@ public final class Specs {
         public Cohort {
             groups = List.copyOf(groups);
             covariates = List.copyOf(covariates);
+            // a backstop behind the loader's messages; written so that NaN fails too
+            require(duplicateThreshold >= 0 && duplicateThreshold <= 1, "duplicate threshold", duplicateThreshold);
         }
 
         /** A cohort with the default duplicate threshold. */
@@ -62,6 +64,10 @@ public final class Specs {
      */
     public record View(String name, Layout layout, Path location, String idColumn, boolean missingAllowed,
                        double tolerance, String variable, Path subjectOrder, Path labels, boolean subjectAxisLast) {
+        public View {
+            require(tolerance >= 0, "symmetry tolerance", tolerance);
+        }
+
         /** A view without array options (text matrices or a table). */
         public View(String name, Layout layout, Path location, String idColumn, boolean missingAllowed,
                     double tolerance) {
@@ -114,6 +120,7 @@ public final class Specs {
     public record Selection(String method, List<Integer> keep) {
         public Selection {
             keep = List.copyOf(keep);
+            require(!keep.isEmpty() && keep.stream().allMatch(k -> k >= 1), "features to keep", keep);
         }
     }
 
@@ -150,9 +157,26 @@ public final class Specs {
 
     /** Nested cross-validation settings. */
     public record Validation(Scheme scheme, int folds, int repeats, int innerFolds, String tuneBy) {
+        public Validation {
+            require(scheme != null && tuneBy != null, "scheme and tune-by", scheme);
+            require(folds >= 2 && repeats >= 1 && innerFolds >= 2, "folds, repeats, inner folds",
+                    folds + ", " + repeats + ", " + innerFolds);
+        }
+
         /** {@link #tuneBy} as the tables and metric maps spell it ({@code balanced_accuracy}). */
         public String tuneByColumn() {
             return Specs.column(tuneBy);
+        }
+    }
+
+    /**
+     * Throws unless {@code ok}: the records' backstop behind the loader's one-line messages (which give each key its
+     * default after reporting it, so a loaded spec never trips it). Conditions are written in positive form, so that
+     * NaN fails them.
+     */
+    static void require(boolean ok, String what, Object value) {
+        if (!ok) {
+            throw new IllegalArgumentException(what + " out of range: " + value);
         }
     }
 
@@ -196,6 +220,11 @@ public final class Specs {
                                String adjust, double rope, int bootstrap, double confidence) {
         public Significance {
             compare = List.copyOf(compare);
+            require(permutations >= 0 && earlyStop >= 0 && bootstrap >= 0, "permutations, early stop, bootstrap",
+                    permutations + ", " + earlyStop + ", " + bootstrap);
+            require(alpha > 0 && alpha < 1, "alpha", alpha);
+            require(rope >= 0, "rope", rope);
+            require(confidence > 0 && confidence < 1, "confidence", confidence);
         }
 
         /** {@link #metric} as the tables and metric maps spell it ({@code balanced_accuracy}). */
