@@ -21,9 +21,11 @@ import org.viewgain.spec.FeatureSet;
 final class AvailabilityRun {
     /** What the runner lends the curve: its unit store, its thread pool and its progress count. */
     interface Host {
-        Object known(String key);
+        UnitCodec.ImputerSummary known(WorkUnit.Imputation u);
 
-        void record(String key, Object value);
+        ClassifierStage.Output known(WorkUnit.Classifier u);
+
+        void record(WorkUnit u, Object value);
 
         void runAll(List<Callable<Void>> tasks);
 
@@ -32,8 +34,8 @@ final class AvailabilityRun {
 
     private final Experiment ex;
     private final AvailabilityCurve curve;
-    /** Repeat and fold of each outer fold slot, in the runner's order. */
-    private final List<int[]> slots = new ArrayList<>();
+    /** The outer folds, in the runner's slot order. */
+    private final List<OuterFold> slots;
     /** Per level and slot, the kept positions (ascending), or null when the level keeps every target there. */
     private final int[][][] keep;
     private final int[] available;
@@ -43,11 +45,7 @@ final class AvailabilityRun {
     AvailabilityRun(Experiment ex) {
         this.ex = ex;
         this.curve = ex.spec().availability();
-        for (int r = 0; r < ex.plan().repeats(); r++) {
-            for (int f = 0; f < ex.plan().folds(r); f++) {
-                slots.add(new int[] {r, f});
-            }
-        }
+        this.slots = OuterFold.of(ex.plan());
         for (int pi = 0; pi < ex.pipelines().size(); pi++) {
             if (ex.pipelines().get(pi).featureSet() == FeatureSet.SOURCE_IMPUTED) {
                 pipelines.add(pi);
@@ -57,7 +55,7 @@ final class AvailabilityRun {
         keep = new int[levels][slots.size()][];
         available = new int[slots.size()];
         for (int s = 0; s < slots.size() && curve != null; s++) {
-            int[] order = Availability.order(ex, slots.get(s)[0], slots.get(s)[1]);
+            int[] order = Availability.order(ex, slots.get(s).repeat(), slots.get(s).fold());
             available[s] = order.length;
             for (int l = 0; l < levels; l++) {
                 int[] kept = Availability.subset(curve, l, order);
@@ -71,21 +69,9 @@ final class AvailabilityRun {
         return curve != null;
     }
 
-    static boolean isCurveKey(String key) {
-        return key.charAt(0) == 'a';
-    }
-
-    static String imputerKey(int level, int slot, int imputer) {
-        return "ai/" + level + "/" + slot + "/" + imputer;
-    }
-
-    static String classifierKey(int level, int slot, int pipeline) {
-        return "ac/" + level + "/" + slot + "/" + pipeline;
-    }
-
-    /** The curve's unit keys a shard owns (all of them for {@code shard} null): imputation units, then classifier units. */
-    List<String> keys(Shard shard) {
-        List<String> out = new ArrayList<>();
+    /** The curve's units a shard owns (all of them for {@code shard} null): imputation units, then classifier units. */
+    List<WorkUnit> units(Shard shard) {
+        List<WorkUnit> out = new ArrayList<>();
         if (!active()) {
             return out;
         }
@@ -94,7 +80,7 @@ final class AvailabilityRun {
             for (int s = 0; s < slots.size(); s++) {
                 for (int m = 0; m < ex.imputers().size() && keep[l][s] != null; m++) {
                     if (shard == null || shard.owns(position)) {
-                        out.add(imputerKey(l, s, m));
+                        out.add(new WorkUnit.Imputation(l, s, m));
                     }
                     position++;
                 }
@@ -105,7 +91,7 @@ final class AvailabilityRun {
             for (int s = 0; s < slots.size(); s++) {
                 for (int k = 0; k < pipelines.size() && keep[l][s] != null; k++) {
                     if (shard == null || shard.owns(position)) {
-                        out.add(classifierKey(l, s, pipelines.get(k)));
+                        out.add(new WorkUnit.Classifier(l, s, pipelines.get(k)));
                     }
                     position++;
                 }
@@ -136,11 +122,12 @@ final class AvailabilityRun {
     }
 
     /** Runs the curve units among {@code mine} that are not done yet, level by level (one level's imputations held). */
-    void run(List<String> mine, int[][] innerOf, Host host) {
-        Set<String> pending = new HashSet<>();
-        for (String key : mine) {
-            if (isCurveKey(key) && host.known(key) == null) {
-                pending.add(key);
+    void run(List<WorkUnit> mine, int[][] innerOf, Host host) {
+        Set<WorkUnit> pending = new HashSet<>();
+        for (WorkUnit u : mine) {
+            if (u instanceof WorkUnit.Imputation i && i.curve() && host.known(i) == null
+                    || u instanceof WorkUnit.Classifier c && c.curve() && host.known(c) == null) {
+                pending.add(u);
             }
         }
         if (pending.isEmpty()) {
@@ -149,28 +136,29 @@ final class AvailabilityRun {
         for (int l = 0; l < keep.length; l++) {
             final int level = l;
             Set<Integer> needed = new java.util.TreeSet<>();
-            for (String key : pending) {
-                String[] parts = key.split("/");
-                if (Integer.parseInt(parts[1]) == level) {
-                    needed.add(Integer.parseInt(parts[2]));
+            for (WorkUnit u : pending) {
+                if (u instanceof WorkUnit.Imputation i && i.level() == level) {
+                    needed.add(i.slot());
+                } else if (u instanceof WorkUnit.Classifier c && c.level() == level) {
+                    needed.add(c.slot());
                 }
             }
             ImputedFold[][] imputed = new ImputedFold[slots.size()][ex.imputers().size()];
             Experiment[] masked = new Experiment[slots.size()];
             List<Callable<Void>> tasks = new ArrayList<>();
             for (int s : needed) {
-                int[] rf = slots.get(s);
-                masked[s] = Availability.masked(ex, rf[0], rf[1], keep[level][s]);
+                OuterFold of = slots.get(s);
+                masked[s] = Availability.masked(ex, of.repeat(), of.fold(), keep[level][s]);
                 for (int m = 0; m < ex.imputers().size(); m++) {
                     final int slot = s;
                     final int mm = m;
                     tasks.add(() -> {
                         ImputedFold fi = new ImputationStage(masked[slot]).run(ex.imputers().get(mm), 0, ex.plan(),
-                                rf[0], rf[1]);
+                                of.repeat(), of.fold());
                         imputed[slot][mm] = fi;
-                        String key = imputerKey(level, slot, mm);
-                        if (pending.contains(key)) {
-                            host.record(key, Runner.summary(ex, rf, mm, fi));
+                        WorkUnit unit = new WorkUnit.Imputation(level, slot, mm);
+                        if (pending.contains(unit)) {
+                            host.record(unit, Runner.summary(ex, of, mm, fi));
                             host.done();
                         }
                         return null;
@@ -180,20 +168,20 @@ final class AvailabilityRun {
             host.runAll(tasks);
             tasks.clear();
             for (int s : needed) {
-                int[] rf = slots.get(s);
+                OuterFold of = slots.get(s);
                 for (int pi : pipelines) {
-                    String key = classifierKey(level, s, pi);
-                    if (!pending.contains(key)) {
+                    WorkUnit unit = new WorkUnit.Classifier(level, s, pi);
+                    if (!pending.contains(unit)) {
                         continue;
                     }
                     Pipeline p = ex.pipelines().get(pi);
                     int m = ex.imputers().indexOf(ex.imputer(p.imputer()));
                     final int slot = s;
                     tasks.add(() -> {
-                        ClassifierStage.Output o = new ClassifierStage(masked[slot]).run(p, 0, ex.plan(), rf[0],
-                                rf[1], innerOf[slot], imputed[slot][m], ex.data().y());
+                        ClassifierStage.Output o = new ClassifierStage(masked[slot]).run(p, 0, ex.plan(),
+                                of.repeat(), of.fold(), innerOf[slot], imputed[slot][m], ex.data().y());
                         // what the model used is reported for the run's own fits only
-                        host.record(key, new ClassifierStage.Output(o.predictions(), o.choice(), null));
+                        host.record(unit, new ClassifierStage.Output(o.predictions(), o.choice(), null));
                         host.done();
                         return null;
                     });
@@ -232,8 +220,8 @@ final class AvailabilityRun {
         for (int pi : pipelines) {
             for (int s = 0; s < slots.size(); s++) {
                 boolean own = l < 0 || keep[l][s] == null;
-                ClassifierStage.Output o = (ClassifierStage.Output) host.known(own ? UnitCodec.classifierKey(s, pi)
-                        : classifierKey(l, s, pi));
+                ClassifierStage.Output o = host.known(own ? WorkUnit.Classifier.of(s, pi)
+                        : new WorkUnit.Classifier(l, s, pi));
                 predictions.addAll(o.predictions());
             }
         }
@@ -241,8 +229,8 @@ final class AvailabilityRun {
         for (int m = 0; m < ex.imputers().size(); m++) {
             for (int s = 0; s < slots.size(); s++) {
                 boolean own = l < 0 || keep[l][s] == null;
-                UnitCodec.ImputerSummary sum = (UnitCodec.ImputerSummary) host.known(own ? UnitCodec.imputerKey(s, m)
-                        : imputerKey(l, s, m));
+                UnitCodec.ImputerSummary sum = host.known(own ? WorkUnit.Imputation.of(s, m)
+                        : new WorkUnit.Imputation(l, s, m));
                 quality.addAll(sum.quality());
             }
         }

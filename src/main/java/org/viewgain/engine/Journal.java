@@ -136,7 +136,14 @@ public final class Journal implements Closeable {
                 }
                 id = rec.get("identity");
             } else {
-                units.put(rec.get("unit").asText(), rec);
+                String key = rec.path("unit").asText();
+                try {
+                    WorkUnit.parse(key);
+                } catch (IllegalArgumentException e) {
+                    throw new BadInputException(file + ": line " + lineNo + " names no work unit of this viewgain ('"
+                            + key + "'); the journal comes from another version or was edited");
+                }
+                units.put(key, rec);
             }
             good = end + 1;
             start = end + 1;

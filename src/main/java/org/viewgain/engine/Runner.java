@@ -28,7 +28,7 @@ public final class Runner {
     private final Experiment ex;
     private final int threads;
     private final Progress progress;
-    private final Map<String, Object> done = new ConcurrentHashMap<>();
+    private final Map<WorkUnit, Object> done = new ConcurrentHashMap<>();
     private Journal journal;
     private UnitCodec codec;
     private final AvailabilityRun curve;
@@ -44,7 +44,7 @@ public final class Runner {
 
     /** Label-free results of phase one, shared with the permutation test. */
     final class State {
-        private final List<int[]> folds = new ArrayList<>();
+        private final List<OuterFold> folds = OuterFold.of(ex.plan());
         private int[][] innerOf;
         private ImputedFold[][] imputed;
 
@@ -53,9 +53,9 @@ public final class Runner {
         }
 
         int slot(int repeat, int fold) {
-            for (int[] rf : folds) {
-                if (rf[0] == repeat && rf[1] == fold) {
-                    return rf[2];
+            for (OuterFold of : folds) {
+                if (of.repeat() == repeat && of.fold() == fold) {
+                    return of.slot();
                 }
             }
             throw new IllegalArgumentException("no fold " + repeat + "/" + fold);
@@ -112,7 +112,7 @@ public final class Runner {
             folds += ex.plan().folds(r);
         }
         return folds * ((anyImputed() ? ex.imputers().size() : 0) + ex.pipelines().size())
-                + (long) ex.spec().significance().permutations() * ex.pipelines().size() + curve.keys(null).size()
+                + (long) ex.spec().significance().permutations() * ex.pipelines().size() + curve.units(null).size()
                 + (ex.spec().finalPipelines() ? ex.pipelines().size() : 0);
     }
 
@@ -142,15 +142,20 @@ public final class Runner {
         execute(shard);
     }
 
-    /** Keys of every unit a shard owns (all units for a whole run, {@code shard} null). */
+    /** Keys of every unit a shard owns (all units for a whole run, {@code shard} null), as the journal names them. */
     public List<String> unitKeys(Shard shard) {
-        List<String> out = new ArrayList<>();
+        return units(shard).stream().map(WorkUnit::key).toList();
+    }
+
+    /** Every unit a shard owns (all units for a whole run, {@code shard} null), in the order they are listed. */
+    List<WorkUnit> units(Shard shard) {
+        List<WorkUnit> out = new ArrayList<>();
         int slots = slotCount();
         if (anyImputed()) {
             for (int s = 0; s < slots; s++) {
                 for (int m = 0; m < ex.imputers().size(); m++) {
                     if (shard == null || shard.owns((long) s * ex.imputers().size() + m)) {
-                        out.add(UnitCodec.imputerKey(s, m));
+                        out.add(WorkUnit.Imputation.of(s, m));
                     }
                 }
             }
@@ -159,15 +164,15 @@ public final class Runner {
         for (int s = 0; s < slots; s++) {
             for (int pi = 0; pi < pipelines; pi++) {
                 if (shard == null || shard.owns((long) s * pipelines + pi)) {
-                    out.add(UnitCodec.classifierKey(s, pi));
+                    out.add(WorkUnit.Classifier.of(s, pi));
                 }
             }
         }
-        out.addAll(curve.keys(shard));
+        out.addAll(curve.units(shard));
         if (ex.spec().finalPipelines()) {
             for (int pi = 0; pi < pipelines; pi++) {
                 if (shard == null || shard.owns(pi)) {
-                    out.add(UnitCodec.finalKey(pi));
+                    out.add(new WorkUnit.Final(pi));
                 }
             }
         }
@@ -175,7 +180,7 @@ public final class Runner {
             for (int pi = 0; pi < pipelines; pi++) {
                 for (int k = 0; k < ex.spec().significance().permutations(); k++) {
                     if (shard.owns(k)) {
-                        out.add(UnitCodec.permutationKey(pi, k));
+                        out.add(new WorkUnit.Permutation(pi, k));
                     }
                 }
             }
@@ -191,44 +196,47 @@ public final class Runner {
         return n;
     }
 
-    private Object known(String key) {
-        Object v = done.get(key);
+    /** The result of a finished unit (this run's, or read from the journal), or null when it has not run. */
+    private Object known(WorkUnit u) {
+        Object v = done.get(u);
         if (v == null && journal != null) {
-            JsonNode rec = journal.unit(key);
+            JsonNode rec = journal.unit(u.key());
             if (rec != null) {
-                v = switch (kind(key)) {
-                    case 'i' -> codec.imputer(rec);
-                    case 'c' -> codec.classifier(rec);
-                    case 'f' -> codec.finalUnit(rec);
-                    default -> UnitCodec.permutation(rec);
-                };
-                done.put(key, v);
-                journal.take(key);
+                v = codec.decode(u, rec);
+                done.put(u, v);
+                journal.take(u.key());
             }
         }
         return v;
     }
 
-    /** The kind of a unit: 'i' imputation, 'c' classifier, 'p' permutation (curve units are of the first two). */
-    private static char kind(String key) {
-        return AvailabilityRun.isCurveKey(key) ? key.charAt(1) : key.charAt(0);
+    /** The results of finished units, typed by their kind (the only casts of the unit store). */
+    UnitCodec.ImputerSummary known(WorkUnit.Imputation u) {
+        return (UnitCodec.ImputerSummary) known((WorkUnit) u);
     }
 
-    private void record(String key, Object value) {
+    ClassifierStage.Output known(WorkUnit.Classifier u) {
+        return (ClassifierStage.Output) known((WorkUnit) u);
+    }
+
+    FinalStage.Unit known(WorkUnit.Final u) {
+        return (FinalStage.Unit) known((WorkUnit) u);
+    }
+
+    Double known(WorkUnit.Permutation u) {
+        return (Double) known((WorkUnit) u);
+    }
+
+    private void record(WorkUnit u, Object value) {
         if (journal != null) {
-            journal.append(switch (kind(key)) {
-                case 'i' -> codec.imputer(key, (UnitCodec.ImputerSummary) value);
-                case 'c' -> codec.classifier(key, (ClassifierStage.Output) value);
-                case 'f' -> codec.finalUnit(key, (FinalStage.Unit) value);
-                default -> codec.permutation(key, (Double) value);
-            });
+            journal.append(codec.encode(u, value));
         }
-        done.put(key, value);
+        done.put(u, value);
     }
 
     private RunResults execute(Shard shard) {
         FoldPlan plan = ex.plan();
-        List<String> mine = unitKeys(shard);
+        List<WorkUnit> mine = units(shard);
         // a shard counts its own share; a whole run also counts the permutations it plans
         Counter counter = new Counter(shard == null ? units() : mine.size());
         ExecutorService pool = Executors.newFixedThreadPool(threads, r -> {
@@ -238,47 +246,43 @@ public final class Runner {
         });
         try {
             State state = new State();
-            for (int r = 0; r < plan.repeats(); r++) {
-                for (int f = 0; f < plan.folds(r); f++) {
-                    state.folds.add(new int[] {r, f, state.folds.size()});
-                }
-            }
             state.innerOf = new int[state.folds.size()][];
-            for (int[] rf : state.folds) {
-                state.innerOf[rf[2]] = InnerFolds.of(ex, rf[0], rf[1]);
+            for (OuterFold of : state.folds) {
+                state.innerOf[of.slot()] = InnerFolds.of(ex, of.repeat(), of.fold());
             }
             state.imputed = new ImputedFold[state.folds.size()][ex.imputers().size()];
             Set<Integer> needed = new TreeSet<>();
             boolean allSlots = false;
-            for (String key : mine) {
-                if (known(key) != null) {
+            for (WorkUnit u : mine) {
+                if (known(u) != null) {
                     counter.done();
-                } else if (key.charAt(0) == 'p') {
+                } else if (u instanceof WorkUnit.Permutation) {
                     allSlots = true;
-                } else if (!AvailabilityRun.isCurveKey(key) && key.charAt(0) != 'f') {
-                    needed.add(Integer.parseInt(key.split("/")[1]));
+                } else if (u instanceof WorkUnit.Imputation i && !i.curve()) {
+                    needed.add(i.slot());
+                } else if (u instanceof WorkUnit.Classifier c && !c.curve()) {
+                    needed.add(c.slot());
                 }
             }
             // phase one: imputations, label-free, recomputed for the folds still to run (never journaled)
             if (allSlots) {
                 needed.clear();
-                state.folds.forEach(rf -> needed.add(rf[2]));
+                state.folds.forEach(of -> needed.add(of.slot()));
             }
             impute(state, needed, pool, shard, counter, true);
             // phase two: pipelines
             ClassifierStage stage = new ClassifierStage(ex);
             List<Callable<Void>> tasks = new ArrayList<>();
-            for (String key : mine) {
-                if (key.charAt(0) != 'c' || known(key) != null) {
+            for (WorkUnit u : mine) {
+                if (!(u instanceof WorkUnit.Classifier c) || c.curve() || known(c) != null) {
                     continue;
                 }
-                String[] parts = key.split("/");
-                int[] rf = state.folds.get(Integer.parseInt(parts[1]));
-                Pipeline p = ex.pipelines().get(Integer.parseInt(parts[2]));
+                OuterFold of = state.folds.get(c.slot());
+                Pipeline p = ex.pipelines().get(c.pipeline());
                 int m = p.featureSet().needsImputer() ? state.imputerIndex(p.imputer()) : -1;
                 tasks.add(() -> {
-                    record(key, stage.run(p, 0, plan, rf[0], rf[1], state.innerOf[rf[2]],
-                            m < 0 ? null : state.imputed[rf[2]][m], ex.data().y()));
+                    record(c, stage.run(p, 0, plan, of.repeat(), of.fold(), state.innerOf[of.slot()],
+                            m < 0 ? null : state.imputed[of.slot()][m], ex.data().y()));
                     counter.done();
                     return null;
                 });
@@ -287,21 +291,18 @@ public final class Runner {
             // the availability curve: its own units, level by level, on the same folds
             curve.run(mine, state.innerOf, host(pool, counter));
             runFinals(mine, pool, counter);
-            Permutations perm = new Permutations(ex, state, (p, k) -> (Double) known(UnitCodec.permutationKey(p, k)),
-                    (p, k, v) -> record(UnitCodec.permutationKey(p, k), v), () -> impute(state,
+            Permutations perm = new Permutations(ex, state, (p, k) -> known(new WorkUnit.Permutation(p, k)),
+                    (p, k, v) -> record(new WorkUnit.Permutation(p, k), v), () -> impute(state,
                     allFolds(state), pool, null, counter, false));
             if (shard != null) {
                 // permutation-major, a few permutations at a time: the pipelines of one permutation share its
                 // imputations, which are dropped after each batch
                 TreeMap<Integer, List<Callable<Void>>> byPermutation = new TreeMap<>();
                 String metric = ex.spec().significance().metricColumn();
-                for (String key : mine) {
-                    if (key.charAt(0) == 'p' && known(key) == null) {
-                        String[] parts = key.split("/");
-                        int pi = Integer.parseInt(parts[1]);
-                        int k = Integer.parseInt(parts[2]);
-                        byPermutation.computeIfAbsent(k, x -> new ArrayList<>()).add(() -> {
-                            record(key, perm.statistic(ex.pipelines().get(pi), k + 1, metric));
+                for (WorkUnit u : mine) {
+                    if (u instanceof WorkUnit.Permutation pu && known(pu) == null) {
+                        byPermutation.computeIfAbsent(pu.k(), x -> new ArrayList<>()).add(() -> {
+                            record(pu, perm.statistic(ex.pipelines().get(pu.pipeline()), pu.k() + 1, metric));
                             counter.done();
                             return null;
                         });
@@ -348,12 +349,12 @@ public final class Runner {
     }
 
     /** Runs the final units of {@code mine} not journaled yet (their imputers fitted first, once each). */
-    private void runFinals(List<String> mine, ExecutorService pool, Counter counter) {
+    private void runFinals(List<WorkUnit> mine, ExecutorService pool, Counter counter) {
         FinalStage stage = new FinalStage(ex);
         List<Integer> todo = new ArrayList<>();
-        for (String key : mine) {
-            if (key.charAt(0) == 'f' && known(key) == null) {
-                todo.add(Integer.parseInt(key.split("/")[1]));
+        for (WorkUnit u : mine) {
+            if (u instanceof WorkUnit.Final f && known(f) == null) {
+                todo.add(f.pipeline());
             }
         }
         if (todo.isEmpty()) {
@@ -372,7 +373,7 @@ public final class Runner {
             Pipeline p = ex.pipelines().get(pi);
             tasks.add(() -> {
                 ImputationStage.Final f = p.featureSet().needsImputer() ? finalImputers.get(p.imputer()) : null;
-                record(UnitCodec.finalKey(pi), stage.unit(p, stage.train(p, f)));
+                record(new WorkUnit.Final(pi), stage.unit(p, stage.train(p, f)));
                 counter.done();
                 return null;
             });
@@ -401,7 +402,7 @@ public final class Runner {
         List<FinalPipelines.Entry> entries = new ArrayList<>();
         for (int pi = 0; pi < ex.pipelines().size(); pi++) {
             Pipeline p = ex.pipelines().get(pi);
-            FinalStage.Unit u = (FinalStage.Unit) known(UnitCodec.finalKey(pi));
+            FinalStage.Unit u = known(new WorkUnit.Final(pi));
             entries.add(new FinalPipelines.Entry(p, u));
         }
         Map<String, byte[]> parts = new TreeMap<>();
@@ -418,7 +419,7 @@ public final class Runner {
 
     private static Set<Integer> allFolds(State state) {
         Set<Integer> all = new TreeSet<>();
-        state.folds.forEach(rf -> all.add(rf[2]));
+        state.folds.forEach(of -> all.add(of.slot()));
         return all;
     }
 
@@ -434,19 +435,19 @@ public final class Runner {
         ImputationStage stage = new ImputationStage(ex);
         List<Callable<Void>> tasks = new ArrayList<>();
         for (int slot : slots) {
-            int[] rf = state.folds.get(slot);
+            OuterFold of = state.folds.get(slot);
             for (int m = 0; m < ex.imputers().size(); m++) {
                 if (state.imputed[slot][m] != null) {
                     continue;
                 }
                 final int mm = m;
-                String key = UnitCodec.imputerKey(slot, m);
+                WorkUnit.Imputation unit = WorkUnit.Imputation.of(slot, m);
                 boolean owned = shard == null || shard.owns((long) slot * ex.imputers().size() + m);
                 tasks.add(() -> {
-                    ImputedFold fi = stage.run(ex.imputers().get(mm), 0, ex.plan(), rf[0], rf[1]);
+                    ImputedFold fi = stage.run(ex.imputers().get(mm), 0, ex.plan(), of.repeat(), of.fold());
                     state.imputed[slot][mm] = fi;
-                    if (owned && known(key) == null) {
-                        record(key, summary(rf, mm, fi));
+                    if (owned && known(unit) == null) {
+                        record(unit, summary(ex, of, mm, fi));
                         if (counted) {
                             counter.done();
                         }
@@ -461,13 +462,18 @@ public final class Runner {
     private AvailabilityRun.Host host(ExecutorService pool, Counter counter) {
         return new AvailabilityRun.Host() {
             @Override
-            public Object known(String key) {
-                return Runner.this.known(key);
+            public UnitCodec.ImputerSummary known(WorkUnit.Imputation u) {
+                return Runner.this.known(u);
             }
 
             @Override
-            public void record(String key, Object value) {
-                Runner.this.record(key, value);
+            public ClassifierStage.Output known(WorkUnit.Classifier u) {
+                return Runner.this.known(u);
+            }
+
+            @Override
+            public void record(WorkUnit u, Object value) {
+                Runner.this.record(u, value);
             }
 
             @Override
@@ -482,21 +488,17 @@ public final class Runner {
         };
     }
 
-    private UnitCodec.ImputerSummary summary(int[] rf, int m, ImputedFold fi) {
-        return summary(ex, rf, m, fi);
-    }
-
-    /** What the journal keeps of one imputer in one outer fold ({@code rf}: repeat, fold). */
-    static UnitCodec.ImputerSummary summary(Experiment ex, int[] rf, int m, ImputedFold fi) {
+    /** What the journal keeps of one imputer in one outer fold. */
+    static UnitCodec.ImputerSummary summary(Experiment ex, OuterFold of, int m, ImputedFold fi) {
         Resolved.Imputer imp = ex.imputers().get(m);
         List<RunResults.ImputationRow> quality = new ArrayList<>();
         for (ImputedFold.Quality q : fi.quality()) {
-            quality.add(new RunResults.ImputationRow(imp.name(), rf[0], rf[1], q.subject(), q.mae(), q.rmse(),
-                    q.pearsonR(), q.strengthMae(), q.skill()));
+            quality.add(new RunResults.ImputationRow(imp.name(), of.repeat(), of.fold(), q.subject(), q.mae(),
+                    q.rmse(), q.pearsonR(), q.strengthMae(), q.skill()));
         }
         RunResults.EdgeErrors edges = fi.edgeErrors() == null ? null
-                : new RunResults.EdgeErrors(imp.name(), rf[0], rf[1], quality.size(), fi.edgeErrors());
-        return new UnitCodec.ImputerSummary(new RunResults.Choice(rf[0], rf[1], "imputer", imp.name(), "", "",
+                : new RunResults.EdgeErrors(imp.name(), of.repeat(), of.fold(), quality.size(), fi.edgeErrors());
+        return new UnitCodec.ImputerSummary(new RunResults.Choice(of.repeat(), of.fold(), "imputer", imp.name(), "", "",
                 fi.chosen().toString(), fi.innerMae(), imp.grid().size(), 0), quality, edges);
     }
 
@@ -507,9 +509,9 @@ public final class Runner {
         List<RunResults.EdgeErrors> edges = new ArrayList<>();
         List<Importance.Fold> importance = new ArrayList<>();
         if (anyImputed()) {
-            for (int[] rf : state.folds) {
+            for (OuterFold of : state.folds) {
                 for (int m = 0; m < ex.imputers().size(); m++) {
-                    UnitCodec.ImputerSummary s = (UnitCodec.ImputerSummary) known(UnitCodec.imputerKey(rf[2], m));
+                    UnitCodec.ImputerSummary s = known(WorkUnit.Imputation.of(of.slot(), m));
                     choices.add(s.choice());
                     quality.addAll(s.quality());
                     if (s.edgeErrors() != null) {
@@ -521,8 +523,8 @@ public final class Runner {
         // pipeline-major order: all folds of the first pipeline, then the next
         int perFold = ex.pipelines().size();
         for (int pi = 0; pi < perFold; pi++) {
-            for (int[] rf : state.folds) {
-                ClassifierStage.Output o = (ClassifierStage.Output) known(UnitCodec.classifierKey(rf[2], pi));
+            for (OuterFold of : state.folds) {
+                ClassifierStage.Output o = known(WorkUnit.Classifier.of(of.slot(), pi));
                 predictions.addAll(o.predictions());
                 if (o.choice() != null) {
                     choices.add(o.choice());
@@ -544,15 +546,15 @@ public final class Runner {
         }
         for (int m = 0; m < ex.imputers().size(); m++) {
             float[][] rows = new float[ex.data().n()][];
-            for (int[] rf : state.folds) {
-                if (rf[0] != 0) {
+            for (OuterFold of : state.folds) {
+                if (of.repeat() != 0) {
                     continue;
                 }
-                ImputedFold fi = state.imputed[rf[2]][m];
+                ImputedFold fi = state.imputed[of.slot()][m];
                 if (fi == null) {
                     return Map.of();
                 }
-                for (int i : ex.plan().test(0, rf[1])) {
+                for (int i : ex.plan().test(0, of.fold())) {
                     rows[i] = fi.imputed()[i];
                 }
             }

@@ -21,23 +21,37 @@ final class UnitCodec {
         this.ex = ex;
     }
 
-    /** Key of a phase-one summary unit (outer fold slot, imputer). */
-    static String imputerKey(int slot, int imputer) {
-        return "i/" + slot + "/" + imputer;
+    /** The journal record of a finished unit; {@code value} is the result its kind produces. */
+    ObjectNode encode(WorkUnit u, Object value) {
+        String key = u.key();
+        if (u instanceof WorkUnit.Imputation) {
+            return imputer(key, (ImputerSummary) value);
+        }
+        if (u instanceof WorkUnit.Classifier) {
+            return classifier(key, (ClassifierStage.Output) value);
+        }
+        if (u instanceof WorkUnit.Final) {
+            return finalUnit(key, (FinalStage.Unit) value);
+        }
+        return permutation(key, (Double) value);
     }
 
-    /** Key of a phase-two unit (outer fold slot, pipeline). */
-    static String classifierKey(int slot, int pipeline) {
-        return "c/" + slot + "/" + pipeline;
-    }
-
-    /** Key of a final pipeline's unit (pipeline index). */
-    static String finalKey(int pipeline) {
-        return "f/" + pipeline;
+    /** The result a journal record of unit {@code u} holds (the inverse of {@link #encode}). */
+    Object decode(WorkUnit u, JsonNode rec) {
+        if (u instanceof WorkUnit.Imputation) {
+            return imputer(rec);
+        }
+        if (u instanceof WorkUnit.Classifier) {
+            return classifier(rec);
+        }
+        if (u instanceof WorkUnit.Final) {
+            return finalUnit(rec);
+        }
+        return permutation(rec);
     }
 
     /** A final unit's record: its choice and its frozen parts in Base64 (exact bytes). */
-    ObjectNode finalUnit(String key, FinalStage.Unit u) {
+    private ObjectNode finalUnit(String key, FinalStage.Unit u) {
         ObjectNode o = record(key);
         o.set("choice", choice(u.choice()));
         ArrayNode steps = o.putArray("steps");
@@ -47,16 +61,11 @@ final class UnitCodec {
         return o;
     }
 
-    FinalStage.Unit finalUnit(JsonNode o) {
+    private FinalStage.Unit finalUnit(JsonNode o) {
         java.util.Base64.Decoder b64 = java.util.Base64.getDecoder();
         List<byte[]> steps = new ArrayList<>();
         o.get("steps").forEach(n -> steps.add(b64.decode(n.asText())));
         return new FinalStage.Unit(choice(o.get("choice")), steps, b64.decode(o.get("model").asText()));
-    }
-
-    /** Key of a phase-three unit (pipeline, permutation index from 0). */
-    static String permutationKey(int pipeline, int k) {
-        return "p/" + pipeline + "/" + k;
     }
 
     /**
@@ -67,7 +76,7 @@ final class UnitCodec {
                           RunResults.EdgeErrors edgeErrors) {
     }
 
-    ObjectNode imputer(String key, ImputerSummary s) {
+    private ObjectNode imputer(String key, ImputerSummary s) {
         ObjectNode o = record(key);
         o.set("choice", choice(s.choice()));
         ArrayNode rows = o.putArray("quality");
@@ -84,7 +93,7 @@ final class UnitCodec {
         return o;
     }
 
-    ImputerSummary imputer(JsonNode o) {
+    private ImputerSummary imputer(JsonNode o) {
         List<RunResults.ImputationRow> rows = new ArrayList<>();
         for (JsonNode a : o.get("quality")) {
             rows.add(new RunResults.ImputationRow(a.get(0).asText(), a.get(1).asInt(), a.get(2).asInt(),
@@ -96,7 +105,7 @@ final class UnitCodec {
         return new ImputerSummary(choice(o.get("choice")), rows, edges);
     }
 
-    ObjectNode classifier(String key, ClassifierStage.Output out) {
+    private ObjectNode classifier(String key, ClassifierStage.Output out) {
         ObjectNode o = record(key);
         ArrayNode preds = o.putArray("predictions");
         for (RunResults.Prediction p : out.predictions()) {
@@ -122,7 +131,7 @@ final class UnitCodec {
         return o;
     }
 
-    ClassifierStage.Output classifier(JsonNode o) {
+    private ClassifierStage.Output classifier(JsonNode o) {
         List<RunResults.Prediction> preds = new ArrayList<>();
         for (JsonNode a : o.get("predictions")) {
             preds.add(new RunResults.Prediction(ex.pipelines().get(a.get(0).asInt()), a.get(1).asInt(),
@@ -147,13 +156,13 @@ final class UnitCodec {
         return new ClassifierStage.Output(preds, c == null || c.isNull() ? null : choice(c), imp);
     }
 
-    ObjectNode permutation(String key, double statistic) {
+    private ObjectNode permutation(String key, double statistic) {
         ObjectNode o = record(key);
         o.put("statistic", d(statistic));
         return o;
     }
 
-    static double permutation(JsonNode o) {
+    private static double permutation(JsonNode o) {
         return d(o.get("statistic"));
     }
 
