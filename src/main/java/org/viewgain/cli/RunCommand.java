@@ -199,7 +199,8 @@ final class RunCommand implements Callable<Integer> {
         }
         err.print(convergenceWarning(results));
         err.flush();
-        List<Evaluation.MetricRow> metrics = Evaluation.metrics(results);
+        org.viewgain.engine.Analysis analysis = org.viewgain.engine.Analysis.of(results);
+        List<Evaluation.MetricRow> metrics = analysis.metrics();
         Instant end = Instant.now();
         prov.put("finished_at", end.toString())
                 .put("elapsed_seconds", Duration.between(start, end).toMillis() / 1000.0)
@@ -214,7 +215,7 @@ final class RunCommand implements Callable<Integer> {
                 org.viewgain.report.IndependentTables.writeDuplicates(folder, ex);
             }
         }
-        RunWriter.write(folder, results, prov, metrics);
+        RunWriter.write(folder, analysis, prov);
         try {
             HtmlReport.write(folder.dir(), false);
         } catch (IOException | RuntimeException e) {

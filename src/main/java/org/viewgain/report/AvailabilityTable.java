@@ -1,7 +1,7 @@
 package org.viewgain.report;
 
+import java.util.List;
 import org.viewgain.engine.AvailabilityRows;
-import org.viewgain.engine.RunResults;
 
 /** {@code availability.csv}: the availability curve, one row per level, imputer, classifier and measure. */
 final class AvailabilityTable {
@@ -10,10 +10,10 @@ final class AvailabilityTable {
     private AvailabilityTable() {
     }
 
-    static CsvTable of(RunResults res) {
+    static CsvTable of(List<AvailabilityRows.Row> rows) {
         CsvTable t = new CsvTable("level", "fraction", "count", "full_data", "targets_mean", "targets_min",
                 "targets_max", "imputer", "classifier", "measure", "estimate", "ci_low", "ci_high", "ci_method", "n");
-        for (AvailabilityRows.Row r : AvailabilityRows.of(res)) {
+        for (AvailabilityRows.Row r : rows) {
             CsvTable.Row row = t.row().integer(r.level()).number(r.fraction());
             if (r.count() < 0) {
                 row.text("");

@@ -8,6 +8,7 @@ import org.viewgain.folds.FoldPlan;
 import org.viewgain.engine.Confusion;
 import org.viewgain.engine.Duplicates;
 import org.viewgain.engine.Importance;
+import org.viewgain.engine.ImputationAggregates;
 import org.viewgain.engine.SiteMetrics;
 
 /** The tidy tables of a run, one fact per row, snake_case columns; repeats and folds are numbered from 1. */
@@ -113,108 +114,31 @@ public final class ResultTables {
         return t;
     }
 
-    /**
-     * Per imputer and target feature (base-vector order, e.g. {@code R1~R2}): the mean absolute error over all
-     * outer-test subjects with an observed target, pooled over folds and repeats.
-     */
-    public static CsvTable imputationEdges(RunResults res) {
+    /** Per imputer and target feature: the pooled mean absolute error ({@code ImputationAggregates.edges}). */
+    public static CsvTable imputationEdges(List<ImputationAggregates.EdgeRow> rows) {
         CsvTable t = new CsvTable("imputer", "feature", "mae");
-        var target = res.experiment().data().target();
-        if (target == null) {
-            return t;
-        }
-        List<String> names = target.baseNames();
-        for (String imputer : imputerNames(res)) {
-            double[] sum = new double[names.size()];
-            long n = 0;
-            for (RunResults.EdgeErrors e : res.edgeErrors()) {
-                if (e.imputer().equals(imputer)) {
-                    for (int c = 0; c < sum.length; c++) {
-                        sum[c] += e.sum()[c];
-                    }
-                    n += e.subjects();
-                }
-            }
-            for (int c = 0; c < sum.length && n > 0; c++) {
-                t.row().text(imputer).text(names.get(c)).number(sum[c] / n);
-            }
+        for (ImputationAggregates.EdgeRow r : rows) {
+            t.row().text(r.imputer()).text(r.feature()).number(r.mae());
         }
         return t;
     }
 
-    /**
-     * Per imputer: the number of subject-fold rows and of outer folds, the mean of each quality measure over the
-     * subject-fold rows (non-finite values, e.g. an undefined correlation, left out), and {@code mae_sd}, the standard
-     * deviation over outer folds and repeats of the fold's mean MAE.
-     */
-    public static CsvTable imputationSummary(RunResults res) {
+    /** Per imputer: counts and mean quality measures ({@code ImputationAggregates.summary}). */
+    public static CsvTable imputationSummary(List<ImputationAggregates.SummaryRow> rows) {
         CsvTable t = new CsvTable("imputer", "n_subject_folds", "n_folds", "mae_mean", "mae_sd", "rmse_mean",
                 "pearson_r_mean", "strength_mae_mean", "skill_mean");
-        for (String imputer : imputerNames(res)) {
-            List<RunResults.ImputationRow> rows = res.imputation().stream()
-                    .filter(q -> q.imputer().equals(imputer)).toList();
-            if (rows.isEmpty()) {
-                continue;
-            }
-            java.util.Map<Long, double[]> perFold = new java.util.LinkedHashMap<>();
-            for (RunResults.ImputationRow q : rows) {
-                double[] acc = perFold.computeIfAbsent(((long) q.repeat() << 32) | q.fold(), k -> new double[2]);
-                acc[0] += q.mae();
-                acc[1]++;
-            }
-            double[] foldMae = perFold.values().stream().mapToDouble(a -> a[0] / a[1]).toArray();
-            t.row().text(imputer).integer(rows.size()).integer(foldMae.length)
-                    .number(finiteMean(rows, RunResults.ImputationRow::mae)).number(sd(foldMae))
-                    .number(finiteMean(rows, RunResults.ImputationRow::rmse))
-                    .number(finiteMean(rows, RunResults.ImputationRow::pearsonR))
-                    .number(finiteMean(rows, RunResults.ImputationRow::strengthMae))
-                    .number(finiteMean(rows, RunResults.ImputationRow::skill));
+        for (ImputationAggregates.SummaryRow r : rows) {
+            t.row().text(r.imputer()).integer(r.subjectFolds()).integer(r.folds()).number(r.maeMean())
+                    .number(r.maeSd()).number(r.rmseMean()).number(r.pearsonMean()).number(r.strengthMaeMean())
+                    .number(r.skillMean());
         }
         return t;
-    }
-
-    /** Imputer names in spec order. */
-    private static List<String> imputerNames(RunResults res) {
-        return res.experiment().imputers().stream().map(org.viewgain.engine.Resolved.Imputer::name).toList();
-    }
-
-    /** Mean of the finite values; NaN when there are none. */
-    private static double finiteMean(List<RunResults.ImputationRow> rows,
-                                     java.util.function.ToDoubleFunction<RunResults.ImputationRow> f) {
-        double s = 0;
-        int n = 0;
-        for (RunResults.ImputationRow q : rows) {
-            double v = f.applyAsDouble(q);
-            if (Double.isFinite(v)) {
-                s += v;
-                n++;
-            }
-        }
-        return n > 0 ? s / n : Double.NaN;
-    }
-
-    /** Sample standard deviation (n - 1); NaN for fewer than two values. */
-    private static double sd(double[] v) {
-        if (v.length < 2) {
-            return Double.NaN;
-        }
-        double m = 0;
-        for (double x : v) {
-            m += x;
-        }
-        m /= v.length;
-        double ss = 0;
-        for (double x : v) {
-            ss += (x - m) * (x - m);
-        }
-        return Math.sqrt(ss / (v.length - 1));
     }
 
     /** confusion.csv: every truth x predicted cell per pipeline and repeat. */
-    public static CsvTable confusion(RunResults res) {
-        List<String> groups = res.experiment().spec().cohort().groups();
+    public static CsvTable confusion(List<Confusion.Cell> cells, List<String> groups) {
         CsvTable t = new CsvTable("imputer", "feature_set", "classifier", "repetition", "truth", "predicted", "count");
-        for (Confusion.Cell c : Confusion.cells(res)) {
+        for (Confusion.Cell c : cells) {
             t.row().text(c.pipeline().imputer()).text(c.pipeline().featureSet().label()).text(c.pipeline().classifier())
                     .integer(c.repeat() + 1).text(groups.get(c.truth())).text(groups.get(c.predicted()))
                     .integer(c.count());
@@ -223,9 +147,9 @@ public final class ResultTables {
     }
 
     /** site_metrics.csv: metrics of each pipeline within each site (mean over repeats). */
-    public static CsvTable siteMetrics(RunResults res) {
+    public static CsvTable siteMetrics(List<SiteMetrics.Row> rows) {
         CsvTable t = new CsvTable("imputer", "feature_set", "classifier", "site", "metric", "estimate", "n");
-        for (SiteMetrics.Row m : SiteMetrics.rows(res)) {
+        for (SiteMetrics.Row m : rows) {
             t.row().text(m.pipeline().imputer()).text(m.pipeline().featureSet().label()).text(m.pipeline().classifier())
                     .text(m.site()).text(m.metric()).number(m.estimate()).integer(m.n());
         }

@@ -50,4 +50,43 @@ class LayeringTest {
                 .and().doNotHaveFullyQualifiedName("org.viewgain.imputation.SmileMatrices")
                 .should().dependOnClassesThat().resideInAnyPackage("smile..", "weka..").check(MAIN);
     }
+
+    /**
+     * The HTML report is built from the run folder's files alone: only the table writers and the printed checks of
+     * the report package touch engine types (issue 13's layering).
+     */
+    @Test
+    void givenMainClasses_whenChecked_thenTheHtmlReportImportsNoEngineClass() {
+        noClasses().that().resideInAPackage("org.viewgain.report..")
+                .and().haveSimpleNameNotStartingWith("RunWriter")
+                .and().haveSimpleNameNotStartingWith("ResultTables")
+                .and().haveSimpleNameNotStartingWith("SignificanceTables")
+                .and().haveSimpleNameNotStartingWith("SummaryTable")
+                .and().haveSimpleNameNotStartingWith("IndependentTables")
+                .and().haveSimpleNameNotStartingWith("IndependentText")
+                .and().haveSimpleNameNotStartingWith("AvailabilityTable")
+                .and().haveSimpleNameNotStartingWith("MissingTargets")
+                .and().haveSimpleNameNotStartingWith("CheckReport")
+                .should().dependOnClassesThat().resideInAPackage("org.viewgain.engine..").check(MAIN);
+    }
+
+    /**
+     * The writers lay out what {@code engine.Analysis} computed once; none of them calls the computations behind it
+     * (metrics, comparisons, separation, importance, confusion, site metrics, the curve's rows, imputation aggregates).
+     */
+    @Test
+    void givenMainClasses_whenChecked_thenTheReportCallsNoComputationOfTheAnalysis() {
+        java.util.Set<String> computations = java.util.Set.of("org.viewgain.engine.Evaluation",
+                "org.viewgain.engine.Comparisons", "org.viewgain.engine.Separation", "org.viewgain.engine.Importance",
+                "org.viewgain.engine.Confusion", "org.viewgain.engine.SiteMetrics",
+                "org.viewgain.engine.AvailabilityRows", "org.viewgain.engine.ImputationAggregates");
+        noClasses().that().resideInAPackage("org.viewgain.report..").should().callMethodWhere(
+                new com.tngtech.archunit.base.DescribedPredicate<com.tngtech.archunit.core.domain.JavaMethodCall>(
+                        "a method of the classes that compute the analysis") {
+                    @Override
+                    public boolean test(com.tngtech.archunit.core.domain.JavaMethodCall call) {
+                        return computations.contains(call.getTargetOwner().getName());
+                    }
+                }).check(MAIN);
+    }
 }

@@ -81,7 +81,7 @@ class ImputationQualityTablesTest {
                 new RunResults.EdgeErrors("ridge", 0, 2, 1, new double[] {2, 1, 0}));
         RunResults res = new RunResults(ex, ex.plan(), List.of(), List.of(), rows, edgeErrors, List.of(), List.of(),
                 Map.of());
-        List<String> summary = lines(ResultTables.imputationSummary(res));
+        List<String> summary = lines(ResultTables.imputationSummary(ImputationAggregates.summary(res)));
         assertEquals("imputer,n_subject_folds,n_folds,mae_mean,mae_sd,rmse_mean,pearson_r_mean,strength_mae_mean,"
                 + "skill_mean", summary.get(0));
         // mae: mean of 1, 3, 5 = 3; fold means 2 and 5, sd = 3 / sqrt(2); pearson_r: NaN left out, (0.5+0.1)/2
@@ -94,7 +94,7 @@ class ImputationQualityTablesTest {
         assertEquals("0", a[8]);
         // one fold only: no spread
         assertEquals("ridge,1,1,1,,1,0.9,,0.75", summary.get(2));
-        List<String> edges = lines(ResultTables.imputationEdges(res));
+        List<String> edges = lines(ResultTables.imputationEdges(ImputationAggregates.edges(res)));
         assertEquals(List.of("imputer,feature,mae", "avg,t1,2", "avg,t2,3", "avg,t3,4", "ridge,t1,2", "ridge,t2,1",
                 "ridge,t3,0"), edges);
         assertEquals("imputer,repetition,fold,subject,mae,rmse,pearson_r,strength_mae,skill",

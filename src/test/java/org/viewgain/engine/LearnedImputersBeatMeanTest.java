@@ -47,7 +47,7 @@ class LearnedImputersBeatMeanTest {
     static Map<String, Double> maeMean(Path spec) throws IOException {
         Experiment ex = Setup.prepare(SpecLoader.load(spec));
         RunResults res = new Runner(ex, 2, Progress.NONE).run();
-        CsvTable summary = ResultTables.imputationSummary(res);
+        CsvTable summary = ResultTables.imputationSummary(ImputationAggregates.summary(res));
         StringWriter w = new StringWriter();
         summary.write(w);
         List<String> lines = w.toString().lines().toList();
