@@ -51,6 +51,8 @@ final class DemoCommand implements Callable<Integer> {
             cs.commandLine().getOut().println("demo cohort: " + data + "\ndemo spec: " + spec);
             return 0;
         }
-        return RunCommand.execute(cs.commandLine(), spec, out.resolve("results"), common);
+        CommandLine cl = cs.commandLine();
+        return RunCommand.print(cl, common, org.viewgain.run.RunController.run(spec, out.resolve("results"),
+                RunCommand.options(cl, common)));
     }
 }

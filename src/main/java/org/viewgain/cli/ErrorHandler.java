@@ -26,7 +26,7 @@ final class ErrorHandler implements CommandLine.IExecutionExceptionHandler {
             err.flush();
             return BAD_INPUT;
         }
-        String what = Failure.describe(ex);
+        String what = org.viewgain.run.RunFailure.describe(ex);
         err.println("viewgain: the run failed: " + what + (verbose ? "" : " (use --verbose for details)"));
         if (verbose) {
             ex.printStackTrace(err);

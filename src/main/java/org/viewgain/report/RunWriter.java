@@ -6,15 +6,16 @@ import org.viewgain.engine.Analysis;
 import org.viewgain.engine.RunResults;
 
 /**
- * Writes every table of a finished run into its folder from its {@link Analysis} (computed before, once), then marks
- * run.json complete. Nothing here computes a statistic: the tables lay out the analysis and the run's data.
+ * Writes every table of a finished run into its folder from its {@link Analysis} (computed before, once); the run
+ * controller then marks run.json complete. Nothing here computes a statistic: the tables lay out the analysis and
+ * the run's data.
  */
 public final class RunWriter {
     private RunWriter() {
     }
 
-    /** Writes the tables; run.json is written last with status complete. */
-    public static void write(RunFolder folder, Analysis a, Provenance prov) throws IOException {
+    /** Writes the tables. */
+    public static void write(RunFolder folder, Analysis a) throws IOException {
         RunResults res = a.results();
         folder.write("folds.csv", ResultTables.folds(res));
         folder.write("predictions.csv", ResultTables.predictions(res));
@@ -47,7 +48,5 @@ public final class RunWriter {
         if (a.siteMetrics() != null) {
             folder.write("site_metrics.csv", ResultTables.siteMetrics(a.siteMetrics()));
         }
-        prov.put("status", "complete");
-        folder.writeText("run.json", prov.toJson());
     }
 }

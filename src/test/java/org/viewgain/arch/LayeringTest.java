@@ -89,4 +89,26 @@ class LayeringTest {
                     }
                 }).check(MAIN);
     }
+
+    /** The run lifecycle lives in {@code run}: the commands call the controller, never the runner or the journal. */
+    @Test
+    void givenMainClasses_whenChecked_thenTheCliUsesNeitherRunnerNorJournal() {
+        noClasses().that().resideInAPackage("org.viewgain.cli..").should().dependOnClassesThat()
+                .haveFullyQualifiedName("org.viewgain.engine.Runner").orShould().dependOnClassesThat()
+                .haveFullyQualifiedName("org.viewgain.engine.Journal").check(MAIN);
+    }
+
+    /** {@code run.json} has one writer: the run controller (the only caller of {@code RunFolder.writeText}). */
+    @Test
+    void givenMainClasses_whenChecked_thenOnlyTheRunControllerWritesRunJson() {
+        noClasses().that().doNotHaveFullyQualifiedName("org.viewgain.run.RunController").should()
+                .callMethod(org.viewgain.report.RunFolder.class, "writeText", String.class, String.class).check(MAIN);
+    }
+
+    /** Below the commands, nothing reaches up to the run lifecycle. */
+    @Test
+    void givenMainClasses_whenChecked_thenOnlyTheCliUsesTheRunPackage() {
+        noClasses().that().resideOutsideOfPackages("org.viewgain.cli..", "org.viewgain.run..").should()
+                .dependOnClassesThat().resideInAPackage("org.viewgain.run..").check(MAIN);
+    }
 }

@@ -1,4 +1,4 @@
-package org.viewgain.cli;
+package org.viewgain.run;
 
 import java.io.PrintWriter;
 import java.util.Locale;

@@ -1,43 +1,12 @@
-package org.viewgain.cli;
+package org.viewgain.run;
 
 import java.io.IOException;
-import java.io.PrintWriter;
 import java.io.UncheckedIOException;
-import java.time.Instant;
-import org.viewgain.report.Provenance;
-import org.viewgain.report.RunFolder;
-import org.viewgain.spec.BadInputException;
 import org.viewgain.spec.IoMessages;
-import picocli.CommandLine;
 
-/**
- * A run that stopped with an error: marks run.json {@code failed}, says in one line what happened (out of memory and
- * a full disk by name) and how to continue, and returns exit code 1. The journal keeps every finished unit.
- */
-final class Failure {
-    private Failure() {
-    }
-
-    static int report(CommandLine cl, Common common, RunFolder folder, Provenance prov, Throwable e) {
-        if (e instanceof BadInputException bad) {
-            throw bad;
-        }
-        String what = describe(e);
-        String resume = "viewgain run --resume " + folder.dir();
-        try {
-            prov.put("status", "failed").put("error", what).put("resume_with", resume)
-                    .put("finished_at", Instant.now().toString());
-            folder.writeText("run.json", prov.toJson());
-        } catch (IOException | RuntimeException | OutOfMemoryError ignored) {
-            // run.json still says running: a run that is not complete is never mistaken for one
-        }
-        PrintWriter err = cl.getErr();
-        err.println("viewgain: the run failed: " + what + "; finished units are kept, continue with '" + resume + "'");
-        if (common.verbose) {
-            e.printStackTrace(err);
-        }
-        err.flush();
-        return ErrorHandler.FAILED;
+/** One phrase for what stopped a run: out of memory and a full disk by name, a file problem, or the root's message. */
+public final class RunFailure {
+    private RunFailure() {
     }
 
     /** The out-of-memory phrase, naming the heap this JVM had so that the advice fits. */
@@ -48,7 +17,7 @@ final class Failure {
     }
 
     /** One phrase naming the cause: out of memory, disk full, a file problem or the root's message (no class names). */
-    static String describe(Throwable e) {
+    public static String describe(Throwable e) {
         Throwable root = e;
         boolean io = false;
         while (true) {
