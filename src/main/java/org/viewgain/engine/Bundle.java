@@ -207,7 +207,7 @@ public final class Bundle {
             out.add(FinalStage.thaw(pipe, shape, imp, steps, part(parts, p.get("model").asText()), pipe.label()));
         }
         JsonNode iv = m.get("intervals");
-        Specs.Significance sig = new Specs.Significance(0, 0, "balanced-accuracy", 0.05, List.of(), "none", 0.01,
+        Specs.Significance sig = new Specs.Significance(0, 0, Specs.Metric.BALANCED_ACCURACY, 0.05, List.of(), Specs.Adjustment.NONE, 0.01,
                 iv.get("bootstrap").asInt(), iv.get("confidence").asDouble());
         // calibration applies to classifiers whose scores are probabilities, as their method says
         java.util.Set<String> probability = new java.util.TreeSet<>();

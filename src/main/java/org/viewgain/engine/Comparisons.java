@@ -78,7 +78,7 @@ public final class Comparisons {
             }
         }
         int repeats = res.plan().repeats();
-        String adjust = sig.adjust();
+        String adjust = sig.adjust().label();
         List<Row> out = new ArrayList<>();
         // balanced accuracy, fold by fold; the estimates are the means of the fold values the test uses
         List<Double> diffs = new ArrayList<>();
@@ -167,7 +167,7 @@ public final class Comparisons {
         return out;
     }
 
-    private static List<Row> adjust(List<Row> rows, String method) {
+    private static List<Row> adjust(List<Row> rows, Specs.Adjustment method) {
         Map<String, List<Integer>> byTest = new HashMap<>();
         for (int i = 0; i < rows.size(); i++) {
             if (!Double.isNaN(rows.get(i).pValue())) {
@@ -178,10 +178,10 @@ public final class Comparisons {
         for (List<Integer> idx : byTest.values()) {
             double[] p = idx.stream().mapToDouble(i -> rows.get(i).pValue()).toArray();
             double[] adj = switch (method) {
-                case "holm" -> Adjust.holm(p);
-                case "benjamini-hochberg" -> Adjust.benjaminiHochberg(p);
-                case "bonferroni" -> Adjust.bonferroni(p);
-                default -> p.clone();
+                case HOLM -> Adjust.holm(p);
+                case BENJAMINI_HOCHBERG -> Adjust.benjaminiHochberg(p);
+                case BONFERRONI -> Adjust.bonferroni(p);
+                case NONE -> p.clone();
             };
             for (int k = 0; k < idx.size(); k++) {
                 out.set(idx.get(k), rows.get(idx.get(k)).withAdjusted(adj[k]));

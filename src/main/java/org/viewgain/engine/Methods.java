@@ -25,7 +25,7 @@ public interface Methods {
     ClassifierMethod classifier(String method, String wekaClass, String wekaOptions);
 
     /** The scaling step for {@code features.scale}, or null for {@code none}. */
-    Transform scaler(String scale);
+    Transform scaler(org.viewgain.spec.Specs.Scaling scale);
 
     /**
      * The selection step of {@code features.select} for one value of {@code keep}.
@@ -47,9 +47,10 @@ public interface Methods {
      * @param siteById       site of every subject
      * @param covariatesById covariates ComBat keeps in the data (values per subject id), or an empty map
      */
-    default Transform harmonizer(String method, Map<String, String> siteById, Map<String, double[]> covariatesById) {
-        if (!"combat".equals(method)) {
-            throw new IllegalArgumentException("unknown harmonization '" + method + "'; allowed: combat");
+    default Transform harmonizer(org.viewgain.spec.Specs.Harmonization method, Map<String, String> siteById,
+                                 Map<String, double[]> covariatesById) {
+        if (method != org.viewgain.spec.Specs.Harmonization.COMBAT) {
+            throw new IllegalArgumentException("no harmonization to fit for '" + method.label() + "'");
         }
         return new ComBat(siteById, covariatesById);
     }
@@ -68,8 +69,8 @@ public interface Methods {
             }
 
             @Override
-            public Transform scaler(String scale) {
-                return "standardize".equals(scale) ? new Standardize() : null;
+            public Transform scaler(org.viewgain.spec.Specs.Scaling scale) {
+                return scale == org.viewgain.spec.Specs.Scaling.STANDARDIZE ? new Standardize() : null;
             }
         };
     }

@@ -113,7 +113,7 @@ public final class Setup {
             if (!f.adjust().isEmpty()) {
                 adjuster = methods.covariateAdjuster(covariates, f.adjust());
             }
-            if (f.harmonize() != null) {
+            if (f.harmonized()) {
                 harmonizer = methods.harmonizer(f.harmonize(), sites, f.adjust().isEmpty() ? Map.of() : covariates);
             }
         } catch (IllegalArgumentException e) {

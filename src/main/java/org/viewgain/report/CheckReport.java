@@ -66,7 +66,7 @@ public final class CheckReport {
         FoldPlan plan = ex.plan();
         b.append("\nfolds: ").append(plan.scheme()).append(", ").append(plan.repeats()).append(" repeat(s); inner ")
                 .append(ex.spec().validation().innerFolds()).append(" folds, tuned by ")
-                .append(ex.spec().validation().tuneBy()).append('\n');
+                .append(ex.spec().validation().tuneBy().spec()).append('\n');
         for (int r = 0; r < Math.min(plan.repeats(), 1); r++) {
             b.append("  test fold sizes (repeat 1):");
             for (int f = 0; f < plan.folds(r); f++) {
@@ -111,8 +111,8 @@ public final class CheckReport {
         if (!f.adjust().isEmpty()) {
             s.add("covariate adjustment (" + String.join(", ", f.adjust()) + ")");
         }
-        if (f.harmonize() != null) {
-            s.add(f.harmonize() + " by site");
+        if (f.harmonized()) {
+            s.add(f.harmonize().label() + " by site");
         }
         if (ex.scaler() != null) {
             s.add(ex.scaler().name());

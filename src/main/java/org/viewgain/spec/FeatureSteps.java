@@ -11,7 +11,6 @@ import java.util.List;
  */
 final class FeatureSteps {
     static final List<String> SELECT_METHODS = List.of("t-test", "anova", "variance");
-    static final List<String> HARMONIZERS = List.of("combat", "none");
 
     private FeatureSteps() {
     }
@@ -33,12 +32,13 @@ final class FeatureSteps {
         if (new HashSet<>(adjust).size() != adjust.size()) {
             s.problems.add(s.key("adjust"), "a covariate is listed twice");
         }
-        String harmonize = s.choice("harmonize", HARMONIZERS, "none");
-        if ("combat".equals(harmonize) && cohort.site() == null) {
+        Specs.Harmonization harmonize = Specs.byLabel(Specs.Harmonization.class, s.choice("harmonize",
+                Specs.labels(Specs.Harmonization.class, Specs.Harmonization::label),
+                Specs.Harmonization.NONE.label()), Specs.Harmonization::label);
+        if (harmonize == Specs.Harmonization.COMBAT && cohort.site() == null) {
             s.problems.add(s.key("harmonize"), "combat needs cohort.site (the site column)");
         }
-        return new Specs.Features(base.extract(), base.scale(), select, adjust,
-                "combat".equals(harmonize) ? harmonize : null);
+        return new Specs.Features(base.extract(), base.scale(), select, adjust, harmonize);
     }
 
     private static Specs.Selection selection(Section features, Specs.Cohort cohort) {
@@ -95,7 +95,7 @@ final class FeatureSteps {
 
     /** Leave-site-out tests a site no training subject comes from, which ComBat cannot harmonize. */
     static void checkScheme(Specs.Features features, Specs.Validation validation, Problems problems) {
-        if ("combat".equals(features.harmonize()) && validation.scheme() == Specs.Scheme.LEAVE_SITE_OUT) {
+        if (features.harmonize() == Specs.Harmonization.COMBAT && validation.scheme() == Specs.Scheme.LEAVE_SITE_OUT) {
             problems.add("features.harmonize", "combat cannot be combined with leave-site-out: every test site is "
                     + "unseen in training, so its site effect cannot be estimated; use stratified-k-fold, or drop "
                     + "harmonize");

@@ -17,7 +17,6 @@ import java.util.Set;
  * parameters are checked later against the method registries (they live above this package).
  */
 public final class SpecLoader {
-    static final List<String> TUNE_BY = List.of("balanced-accuracy", "auc", "accuracy");
     static final List<String> EXTRACTORS = List.of("edges", "strength");
 
     private SpecLoader() {
@@ -161,7 +160,9 @@ public final class SpecLoader {
         if (new HashSet<>(extract).size() != extract.size()) {
             s.problems.add(s.key("extract"), "an extractor is listed twice");
         }
-        String scale = s.choice("scale", List.of("standardize", "none"), "standardize");
+        Specs.Scaling scale = Specs.byLabel(Specs.Scaling.class, s.choice("scale",
+                Specs.labels(Specs.Scaling.class, Specs.Scaling::label), Specs.Scaling.STANDARDIZE.label()),
+                Specs.Scaling::label);
         return new Specs.Features(extract, scale);
     }
 
@@ -273,11 +274,11 @@ public final class SpecLoader {
         Section inner = s.section("inner", false);
         inner.allowOnly(Set.of("folds"));
         int innerFolds = inner.integer("folds", 3, 2, 100);
-        String tuneBy = s.choice("tune-by", TUNE_BY, "balanced-accuracy");
+        Specs.Metric tuneBy = Specs.Metric.bySpec(s.choice("tune-by", Specs.Metric.spellings(),
+                Specs.Metric.BALANCED_ACCURACY.spec()));
         return new Specs.Validation(scheme, folds, repeats, innerFolds, tuneBy);
     }
 
-    static final List<String> ADJUST = List.of("holm", "benjamini-hochberg", "bonferroni", "none");
 
     private static Specs.Significance significance(Section s, List<FeatureSet> sets, Specs.Validation validation) {
         s.allowOnly(Set.of("permutations", "early-stop", "metric", "alpha", "compare", "adjust", "rope", "bootstrap",
@@ -287,7 +288,8 @@ public final class SpecLoader {
         if (earlyStop > 0 && permutations > 0 && earlyStop > permutations) {
             s.problems.add(s.key("early-stop"), "h = " + earlyStop + " exceeds permutations = " + permutations);
         }
-        String metric = s.choice("metric", TUNE_BY, validation.tuneBy());
+        Specs.Metric metric = Specs.Metric.bySpec(s.choice("metric", Specs.Metric.spellings(),
+                validation.tuneBy().spec()));
         double alpha = s.number("alpha", 0.05, 1e-9, 0.5);
         List<String> defaults = new ArrayList<>();
         if (sets.contains(FeatureSet.SOURCE_IMPUTED) && sets.contains(FeatureSet.SOURCE)) {
@@ -315,7 +317,9 @@ public final class SpecLoader {
                 }
             }
         }
-        String adjust = s.choice("adjust", ADJUST, "holm");
+        Specs.Adjustment adjust = Specs.byLabel(Specs.Adjustment.class, s.choice("adjust",
+                Specs.labels(Specs.Adjustment.class, Specs.Adjustment::label), Specs.Adjustment.HOLM.label()),
+                Specs.Adjustment::label);
         double rope = s.number("rope", 0.01, 0, 1);
         int bootstrap = s.integer("bootstrap", 1000, 0, 1_000_000);
         double confidence = s.number("confidence", 0.95, 0.5, 0.999);

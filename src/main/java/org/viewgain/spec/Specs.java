@@ -96,18 +96,24 @@ public final class Specs {
      *
      * @param select    top-k selection, or null for none
      * @param adjust    covariates regressed out of every feature (names from {@code cohort.covariates}); may be empty
-     * @param harmonize {@code combat} or null for none
+     * @param harmonize ComBat, or none
      */
-    public record Features(List<String> extract, String scale, Selection select, List<String> adjust,
-                           String harmonize) {
+    public record Features(List<String> extract, Scaling scale, Selection select, List<String> adjust,
+                           Harmonization harmonize) {
         public Features {
             extract = List.copyOf(extract);
             adjust = List.copyOf(adjust);
+            require(scale != null && harmonize != null, "scale and harmonize", scale + ", " + harmonize);
         }
 
         /** Extraction and scaling only. */
-        public Features(List<String> extract, String scale) {
-            this(extract, scale, null, List.of(), null);
+        public Features(List<String> extract, Scaling scale) {
+            this(extract, scale, null, List.of(), Harmonization.NONE);
+        }
+
+        /** Whether ComBat harmonizes the sites inside every fit. */
+        public boolean harmonized() {
+            return harmonize != Harmonization.NONE;
         }
     }
 
@@ -156,7 +162,7 @@ public final class Specs {
     }
 
     /** Nested cross-validation settings. */
-    public record Validation(Scheme scheme, int folds, int repeats, int innerFolds, String tuneBy) {
+    public record Validation(Scheme scheme, int folds, int repeats, int innerFolds, Metric tuneBy) {
         public Validation {
             require(scheme != null && tuneBy != null, "scheme and tune-by", scheme);
             require(folds >= 2 && repeats >= 1 && innerFolds >= 2, "folds, repeats, inner folds",
@@ -165,7 +171,7 @@ public final class Specs {
 
         /** {@link #tuneBy} as the tables and metric maps spell it ({@code balanced_accuracy}). */
         public String tuneByColumn() {
-            return Specs.column(tuneBy);
+            return tuneBy.column();
         }
     }
 
@@ -180,9 +186,105 @@ public final class Specs {
         }
     }
 
-    /** A metric as written in a spec ({@code balanced-accuracy}) as the tables spell it ({@code balanced_accuracy}). */
-    public static String column(String specMetric) {
-        return specMetric.replace('-', '_');
+    /** How features are scaled inside every fit ({@code features.scale}). */
+    public enum Scaling {
+        STANDARDIZE("standardize"), NONE("none");
+
+        private final String label;
+
+        Scaling(String label) {
+            this.label = label;
+        }
+
+        public String label() {
+            return label;
+        }
+    }
+
+    /** Site harmonization inside every fit ({@code features.harmonize}). */
+    public enum Harmonization {
+        COMBAT("combat"), NONE("none");
+
+        private final String label;
+
+        Harmonization(String label) {
+            this.label = label;
+        }
+
+        public String label() {
+            return label;
+        }
+    }
+
+    /** Multiple-testing adjustment across a run's comparisons ({@code significance.adjust}). */
+    public enum Adjustment {
+        HOLM("holm"), BENJAMINI_HOCHBERG("benjamini-hochberg"), BONFERRONI("bonferroni"), NONE("none");
+
+        private final String label;
+
+        Adjustment(String label) {
+            this.label = label;
+        }
+
+        public String label() {
+            return label;
+        }
+    }
+
+    /** The member of a closed vocabulary a spelling names (the loader has checked it is one of {@link #labels}). */
+    public static <E extends Enum<E>> E byLabel(Class<E> type, String label, java.util.function.Function<E, String> of) {
+        for (E e : type.getEnumConstants()) {
+            if (of.apply(e).equals(label)) {
+                return e;
+            }
+        }
+        throw new IllegalArgumentException("no " + type.getSimpleName() + " '" + label + "'");
+    }
+
+    /** The spellings of a closed vocabulary, in declaration order. */
+    public static <E extends Enum<E>> List<String> labels(Class<E> type, java.util.function.Function<E, String> of) {
+        return java.util.Arrays.stream(type.getEnumConstants()).map(of).toList();
+    }
+
+    /**
+     * A metric a spec can tune by or test with ({@code validation.tune-by}, {@code significance.metric}), with its
+     * spelling in the spec and as the tables and metric maps spell it.
+     */
+    public enum Metric {
+        BALANCED_ACCURACY("balanced-accuracy", "balanced_accuracy"), AUC("auc", "auc"), ACCURACY("accuracy", "accuracy");
+
+        private final String spec;
+        private final String column;
+
+        Metric(String spec, String column) {
+            this.spec = spec;
+            this.column = column;
+        }
+
+        /** The spelling in a spec, e.g. {@code balanced-accuracy}. */
+        public String spec() {
+            return spec;
+        }
+
+        /** The spelling in tables and metric maps, e.g. {@code balanced_accuracy}. */
+        public String column() {
+            return column;
+        }
+
+        /** Every spec spelling, in order (for the loader's list of allowed values). */
+        public static List<String> spellings() {
+            return java.util.Arrays.stream(values()).map(Metric::spec).toList();
+        }
+
+        /** The metric a spec spelling names; IllegalArgumentException for another text. */
+        public static Metric bySpec(String spelling) {
+            for (Metric m : values()) {
+                if (m.spec.equals(spelling)) {
+                    return m;
+                }
+            }
+            throw new IllegalArgumentException("no metric '" + spelling + "'; allowed: " + spellings());
+        }
     }
 
     /** How training subjects get the imputed target features. */
@@ -216,8 +318,8 @@ public final class Specs {
      * @param bootstrap    replicates of the subject-level bootstrap intervals
      * @param confidence   level of every interval
      */
-    public record Significance(int permutations, int earlyStop, String metric, double alpha, List<String> compare,
-                               String adjust, double rope, int bootstrap, double confidence) {
+    public record Significance(int permutations, int earlyStop, Metric metric, double alpha, List<String> compare,
+                               Adjustment adjust, double rope, int bootstrap, double confidence) {
         public Significance {
             compare = List.copyOf(compare);
             require(permutations >= 0 && earlyStop >= 0 && bootstrap >= 0, "permutations, early stop, bootstrap",
@@ -229,7 +331,7 @@ public final class Specs {
 
         /** {@link #metric} as the tables and metric maps spell it ({@code balanced_accuracy}). */
         public String metricColumn() {
-            return Specs.column(metric);
+            return metric.column();
         }
     }
 

@@ -131,7 +131,7 @@ class CalibrationMetricsTest {
         int[] truth = {1, 1, 0, 1, 1, 0, 0, 0, 0, 1, 0, 0};
         Pipeline p = new Pipeline("ridge", org.viewgain.spec.FeatureSet.SOURCE_IMPUTED, "forest");
         IndependentResults.Settings s = new IndependentResults.Settings(List.of("control", "patient"), "patient",
-                new org.viewgain.spec.Specs.Significance(0, 0, "balanced-accuracy", 0.05, List.of(), "none", 0.01,
+                new org.viewgain.spec.Specs.Significance(0, 0, org.viewgain.spec.Specs.Metric.BALANCED_ACCURACY, 0.05, List.of(), org.viewgain.spec.Specs.Adjustment.NONE, 0.01,
                         300, 0.95), 7L, java.util.Set.of("forest"));
         List<IndependentResults.Metric> rows = CalibrationMetrics.external(p, truth, prob, s, 12);
         assertEquals(CalibrationMetrics.NAMES, rows.stream().map(IndependentResults.Metric::metric).toList());

@@ -111,7 +111,7 @@ final class Recording implements Methods {
     }
 
     @Override
-    public Transform scaler(String scale) {
+    public Transform scaler(org.viewgain.spec.Specs.Scaling scale) {
         Transform d = real.scaler(scale);
         if (d == null) {
             return null;
@@ -141,7 +141,8 @@ final class Recording implements Methods {
     }
 
     @Override
-    public Transform harmonizer(String method, Map<String, String> siteById, Map<String, double[]> covariatesById) {
+    public Transform harmonizer(org.viewgain.spec.Specs.Harmonization method, Map<String, String> siteById,
+                                 Map<String, double[]> covariatesById) {
         return recorded("harmonizer", real.harmonizer(method, siteById, covariatesById), false);
     }
 

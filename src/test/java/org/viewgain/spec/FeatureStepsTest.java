@@ -49,11 +49,11 @@ class FeatureStepsTest {
                 """), FILE);
         assertEquals(new Specs.Selection("anova", List.of(100, 500)), s.features().select());
         assertEquals(List.of("age", "sex"), s.features().adjust());
-        assertEquals("combat", s.features().harmonize());
+        assertEquals(Specs.Harmonization.COMBAT, s.features().harmonize());
         assertEquals(0.999, s.cohort().duplicateThreshold(), 0.0);
         ExperimentSpec plain = SpecLoader.parse(spec("  scale: none"), FILE);
         assertNull(plain.features().select());
-        assertNull(plain.features().harmonize());
+        assertEquals(Specs.Harmonization.NONE, plain.features().harmonize());
         assertTrue(plain.features().adjust().isEmpty());
         ExperimentSpec one = SpecLoader.parse(spec("  select: { method: variance, keep: 7 }"), FILE);
         assertEquals(List.of(7), one.features().select().keep());

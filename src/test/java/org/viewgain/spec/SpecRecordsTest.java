@@ -14,7 +14,7 @@ import org.junit.jupiter.api.Test;
 class SpecRecordsTest {
 
     static Specs.Significance significance(double alpha, double rope, double confidence) {
-        return new Specs.Significance(0, 0, "balanced-accuracy", alpha, List.of(), "none", rope, 100, confidence);
+        return new Specs.Significance(0, 0, Specs.Metric.BALANCED_ACCURACY, alpha, List.of(), Specs.Adjustment.NONE, rope, 100, confidence);
     }
 
     @Test
@@ -24,17 +24,17 @@ class SpecRecordsTest {
         assertThrows(IllegalArgumentException.class, () -> significance(0.05, Double.NaN, 0.95));
         assertThrows(IllegalArgumentException.class, () -> significance(0.05, 0.01, Double.NaN));
         assertThrows(IllegalArgumentException.class, () -> significance(0.05, 0.01, 1.0));
-        assertThrows(IllegalArgumentException.class, () -> new Specs.Significance(-1, 0, "auc", 0.05, List.of(),
-                "none", 0.01, 100, 0.95));
+        assertThrows(IllegalArgumentException.class, () -> new Specs.Significance(-1, 0, Specs.Metric.AUC, 0.05, List.of(),
+                Specs.Adjustment.NONE, 0.01, 100, 0.95));
 
-        assertDoesNotThrow(() -> new Specs.Validation(Specs.Scheme.STRATIFIED_K_FOLD, 5, 1, 3, "auc"));
+        assertDoesNotThrow(() -> new Specs.Validation(Specs.Scheme.STRATIFIED_K_FOLD, 5, 1, 3, Specs.Metric.AUC));
         assertThrows(IllegalArgumentException.class,
-                () -> new Specs.Validation(Specs.Scheme.STRATIFIED_K_FOLD, 1, 1, 3, "auc"));
+                () -> new Specs.Validation(Specs.Scheme.STRATIFIED_K_FOLD, 1, 1, 3, Specs.Metric.AUC));
         assertThrows(IllegalArgumentException.class,
-                () -> new Specs.Validation(Specs.Scheme.STRATIFIED_K_FOLD, 5, 0, 3, "auc"));
+                () -> new Specs.Validation(Specs.Scheme.STRATIFIED_K_FOLD, 5, 0, 3, Specs.Metric.AUC));
         assertThrows(IllegalArgumentException.class,
-                () -> new Specs.Validation(Specs.Scheme.STRATIFIED_K_FOLD, 5, 1, 1, "auc"));
-        assertThrows(IllegalArgumentException.class, () -> new Specs.Validation(null, 5, 1, 3, "auc"));
+                () -> new Specs.Validation(Specs.Scheme.STRATIFIED_K_FOLD, 5, 1, 1, Specs.Metric.AUC));
+        assertThrows(IllegalArgumentException.class, () -> new Specs.Validation(null, 5, 1, 3, Specs.Metric.AUC));
 
         assertThrows(IllegalArgumentException.class, () -> new Specs.Selection("t-test", List.of()));
         assertThrows(IllegalArgumentException.class, () -> new Specs.Selection("t-test", List.of(5, 0)));
