@@ -102,10 +102,7 @@ public record Experiment(ExperimentSpec spec, StudyData data, FoldPlan plan, Lis
                 perFold += k * imputerFits(imputer(p.imputer()), crossFit, k); // nested imputations for tuning
             }
         }
-        long folds = 0;
-        for (int r = 0; r < plan.repeats(); r++) {
-            folds += plan.folds(r);
-        }
+        long folds = plan.outerFolds();
         // the final pipelines repeat one outer fold's work on the whole development cohort
         return perFold * (folds + (spec.finalPipelines() ? 1 : 0));
     }

@@ -107,10 +107,7 @@ public final class Runner {
 
     /** Number of work units: imputer fits and pipeline fits per outer fold, plus planned permutations. */
     public long units() {
-        long folds = 0;
-        for (int r = 0; r < ex.plan().repeats(); r++) {
-            folds += ex.plan().folds(r);
-        }
+        long folds = ex.plan().outerFolds();
         return folds * ((anyImputed() ? ex.imputers().size() : 0) + ex.pipelines().size())
                 + (long) ex.spec().significance().permutations() * ex.pipelines().size() + curve.units(null).size()
                 + (ex.spec().finalPipelines() ? ex.pipelines().size() : 0);
@@ -150,7 +147,7 @@ public final class Runner {
     /** Every unit a shard owns (all units for a whole run, {@code shard} null), in the order they are listed. */
     List<WorkUnit> units(Shard shard) {
         List<WorkUnit> out = new ArrayList<>();
-        int slots = slotCount();
+        int slots = ex.plan().outerFolds();
         if (anyImputed()) {
             for (int s = 0; s < slots; s++) {
                 for (int m = 0; m < ex.imputers().size(); m++) {
@@ -186,14 +183,6 @@ public final class Runner {
             }
         }
         return out;
-    }
-
-    private int slotCount() {
-        int n = 0;
-        for (int r = 0; r < ex.plan().repeats(); r++) {
-            n += ex.plan().folds(r);
-        }
-        return n;
     }
 
     /** The result of a finished unit (this run's, or read from the journal), or null when it has not run. */

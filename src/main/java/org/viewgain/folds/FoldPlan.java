@@ -97,6 +97,15 @@ public final class FoldPlan {
         return foldsPerRepeat[repeat];
     }
 
+    /** How many outer folds the plan has over all repeats: the one count of them. */
+    public int outerFolds() {
+        int n = 0;
+        for (int f : foldsPerRepeat) {
+            n += f;
+        }
+        return n;
+    }
+
     public int size() {
         return foldOf[0].length;
     }
