@@ -47,32 +47,35 @@ public final class ClassifierRegistry {
         return List.copyOf(FACTORIES.keySet());
     }
 
+    /** A classifier method by name, without settings of its own (every method but {@code weka}). */
+    public static ClassifierMethod create(String method) {
+        return create(method, Map.of());
+    }
+
     /**
-     * A classifier method by name.
+     * A classifier method by name, with the settings a spec gives beside {@code method} (only {@code weka} has any:
+     * its {@code class} and {@code options}, {@link WekaClassifier#settings}).
      *
-     * @param method      a name from {@link #methods()}
-     * @param wekaClass   fully qualified Weka classifier class when {@code method} is {@code weka}, otherwise null
-     * @param wekaOptions Weka option string applied to every fit (may be null or empty), only with {@code weka}
+     * @param method   a name from {@link #methods()}
+     * @param settings the method's own settings; empty for every method but {@code weka}
      * @throws IllegalArgumentException with a one-line message: an unknown method (listing the allowed ones), a Weka
-     *                                  class that does not exist or is not a classifier, or options it rejects
+     *                                  class that does not exist or is not a classifier, options it rejects, or
+     *                                  settings given to a method that takes none
      */
-    public static ClassifierMethod create(String method, String wekaClass, String wekaOptions) {
+    public static ClassifierMethod create(String method, Map<String, String> settings) {
         Supplier<ClassifierMethod> factory = FACTORIES.get(method);
         if (WEKA.equals(method)) {
-            return wekaMethod(wekaClass, wekaOptions);
+            return WekaClassifier.of(settings);
         }
         if (factory == null) {
             throw new IllegalArgumentException("unknown classifier method '" + method + "'; allowed: "
                     + String.join(", ", methods()));
         }
-        if (wekaClass != null || (wekaOptions != null && !wekaOptions.isBlank())) {
+        boolean given = settings.entrySet().stream().anyMatch(e -> e.getValue() != null && !e.getValue().isBlank());
+        if (given) {
             throw new IllegalArgumentException("classifier method '" + method
                     + "' takes no Weka class or options; those are for method 'weka' only");
         }
         return factory.get();
-    }
-
-    private static ClassifierMethod wekaMethod(String wekaClass, String wekaOptions) {
-        return new WekaClassifier(wekaClass, wekaOptions);
     }
 }

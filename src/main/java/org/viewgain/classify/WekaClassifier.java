@@ -62,6 +62,30 @@ public final class WekaClassifier implements ClassifierMethod {
         configured(Params.NONE, true);
     }
 
+    /** The setting that names the Weka class, and the one that gives its option string. */
+    public static final String CLASS = "class";
+    public static final String OPTIONS = "options";
+
+    /**
+     * The method's own settings, as a spec gives them beside {@code method: weka}: {@code class} (required) and
+     * {@code options} (optional).
+     */
+    public static java.util.Map<String, String> settings(String className, String options) {
+        java.util.Map<String, String> m = new java.util.LinkedHashMap<>();
+        if (className != null) {
+            m.put(CLASS, className);
+        }
+        if (options != null) {
+            m.put(OPTIONS, options);
+        }
+        return java.util.Collections.unmodifiableMap(m);
+    }
+
+    /** The method built from its settings (see {@link #settings}). */
+    static WekaClassifier of(java.util.Map<String, String> settings) {
+        return new WekaClassifier(settings.get(CLASS), settings.get(OPTIONS));
+    }
+
     /** The Weka class name. */
     public String className() {
         return type.getName();

@@ -26,7 +26,6 @@ final class CheckCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         Experiment ex = Setup.prepare(SpecLoader.load(spec));
-        org.viewgain.engine.ComparisonPairs.of(ex);
         cs.commandLine().getOut().print(CheckReport.text(ex));
         cs.commandLine().getOut().println("\nspec and data are fine");
         cs.commandLine().getOut().flush();

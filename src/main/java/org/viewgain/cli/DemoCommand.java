@@ -52,7 +52,7 @@ final class DemoCommand implements Callable<Integer> {
             return 0;
         }
         CommandLine cl = cs.commandLine();
-        return RunCommand.print(cl, common, org.viewgain.run.RunController.run(spec, out.resolve("results"),
-                RunCommand.options(cl, common)));
+        return Outcomes.print(cl, common, org.viewgain.run.RunController.run(spec, out.resolve("results"),
+                Outcomes.options(cl, common)));
     }
 }

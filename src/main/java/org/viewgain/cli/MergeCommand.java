@@ -34,6 +34,6 @@ final class MergeCommand implements Callable<Integer> {
     @Override
     public Integer call() throws IOException {
         CommandLine cl = cs.commandLine();
-        return RunCommand.print(cl, common, RunController.merge(shards, out, RunCommand.options(cl, common)));
+        return Outcomes.print(cl, common, RunController.merge(shards, out, Outcomes.options(cl, common)));
     }
 }

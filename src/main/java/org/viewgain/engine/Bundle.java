@@ -213,7 +213,7 @@ public final class Bundle {
         java.util.Set<String> probability = new java.util.TreeSet<>();
         for (JsonNode p : m.get("pipelines")) {
             if ("probability".equals(org.viewgain.classify.ClassifierRegistry.create(p.get("classifier_method")
-                    .asText(), null, null).scoreKind())) {
+                    .asText()).scoreKind())) {
                 probability.add(p.get("classifier").asText());
             }
         }

@@ -43,10 +43,10 @@ final class MethodResolver {
         for (Specs.Method m : spec.classifiers()) {
             ClassifierMethod method;
             try {
-                method = methods.classifier(m.method(), m.wekaClass(), m.wekaOptions());
+                method = methods.classifier(m.method(), m.settings());
             } catch (IllegalArgumentException e) {
-                problems.add(m.path() + (m.wekaClass() != null && "weka".equals(m.method()) ? ".class" : ".method"),
-                        e.getMessage());
+                problems.add(m.path() + (m.settings().containsKey("class") && "weka".equals(m.method()) ? ".class"
+                        : ".method"), e.getMessage());
                 continue;
             }
             List<Params> grid = expand(m, method::resolve, problems);

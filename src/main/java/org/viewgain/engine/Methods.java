@@ -22,7 +22,7 @@ public interface Methods {
     ViewImputer imputer(String method);
 
     /** @throws IllegalArgumentException for an unknown method or a bad Weka class/options */
-    ClassifierMethod classifier(String method, String wekaClass, String wekaOptions);
+    ClassifierMethod classifier(String method, Map<String, String> settings);
 
     /** The scaling step for {@code features.scale}, or null for {@code none}. */
     Transform scaler(org.viewgain.spec.Specs.Scaling scale);
@@ -64,8 +64,8 @@ public interface Methods {
             }
 
             @Override
-            public ClassifierMethod classifier(String method, String wekaClass, String wekaOptions) {
-                return ClassifierRegistry.create(method, wekaClass, wekaOptions);
+            public ClassifierMethod classifier(String method, Map<String, String> settings) {
+                return ClassifierRegistry.create(method, settings);
             }
 
             @Override

@@ -69,6 +69,7 @@ public final class Setup {
         checkPlan(ex, problems);
         Availability.check(ex, problems);
         problems.throwIfAny();
+        ComparisonPairs.of(ex); // the names in significance.compare must be pipelines of the spec (one line if not)
         if (prep.harmonizer() != null) {
             SiteChecks.check(ex, problems);
             problems.throwIfAny();

@@ -13,7 +13,6 @@ import java.util.Set;
 import java.util.TreeMap;
 import org.viewgain.cohort.Subject;
 import org.viewgain.engine.Analysis;
-import org.viewgain.engine.ComparisonPairs;
 import org.viewgain.engine.Experiment;
 import org.viewgain.engine.FinalPipelines;
 import org.viewgain.engine.IndependentResults;
@@ -69,7 +68,6 @@ public final class RunController {
                                       Map<String, Object> old, RunOptions o) throws IOException {
         PrintWriter err = o.err();
         Experiment ex = Setup.prepare(SpecLoader.load(specFile));
-        ComparisonPairs.of(ex); // names in significance.compare are checked before anything is written
         err.print(CheckReport.duplicateWarning(ex));
         err.print(CheckReport.costWarning(ex));
         err.flush();

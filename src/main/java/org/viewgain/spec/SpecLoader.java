@@ -237,10 +237,16 @@ public final class SpecLoader {
                     top.problems.add(s.key("grid") + "." + k, "given both as fixed and in the grid; choose one");
                 }
             }
-            String wekaClass = classifier ? s.text("class", null, false) : null;
-            String wekaOptions = classifier ? s.text("options", null, false) : null;
+            // settings of the method itself, beside `method` (the weka method's class and option string)
+            Map<String, String> settings = new java.util.LinkedHashMap<>();
+            for (String setting : classifier ? List.of("class", "options") : List.<String>of()) {
+                String v = s.text(setting, null, false);
+                if (v != null) {
+                    settings.put(setting, v);
+                }
+            }
             if (method != null && name != null) {
-                out.add(new Specs.Method(name, method, fixed, grid, wekaClass, wekaOptions, path));
+                out.add(new Specs.Method(name, method, fixed, grid, settings, path));
             }
         }
         return out;

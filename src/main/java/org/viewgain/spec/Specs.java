@@ -133,16 +133,17 @@ public final class Specs {
     /**
      * An imputer or classifier entry: a user-chosen name, the method, fixed values and a grid.
      *
-     * @param wekaClass   class name for the {@code weka} method, else null
-     * @param wekaOptions base option string for the {@code weka} method, else null
-     * @param path        key path of the entry (for messages)
+     * @param settings the method's own settings given beside {@code method} (the {@code weka} method's {@code class}
+     *                 and {@code options}); empty for other methods
+     * @param path     key path of the entry (for messages)
      */
     public record Method(String name, String method, Map<String, Object> fixed, Map<String, List<Object>> grid,
-                         String wekaClass, String wekaOptions, String path) {
+                         Map<String, String> settings, String path) {
         public Method {
             // insertion order matters: it fixes the order of grid points (and so the tie-breaking of tuning)
             fixed = java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(fixed));
             grid = java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(grid));
+            settings = java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(settings));
         }
     }
 

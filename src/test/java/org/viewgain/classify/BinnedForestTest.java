@@ -19,7 +19,7 @@ import org.viewgain.spec.Params;
 class BinnedForestTest {
     private static final ReferenceTable CANCER = ReferenceTable.load("breast-cancer-wisconsin.csv");
     private static final ReferenceTable IRIS = ReferenceTable.load("iris.csv");
-    private final ClassifierMethod forest = ClassifierRegistry.create("random-forest", null, null);
+    private final ClassifierMethod forest = ClassifierRegistry.create("random-forest");
 
     /** One tree grown on every row once (no bootstrap), all features tried, leaves of one row allowed. */
     private static BinnedForest.Tree tree(double[][] x, int[] y, double[] importance) {
@@ -110,8 +110,7 @@ class BinnedForestTest {
         // tiny (common practice, no source).
         for (ReferenceTable table : new ReferenceTable[] {IRIS, CANCER}) {
             int mtry = (int) Math.floor(Math.sqrt(table.rows().p()));
-            ClassifierMethod weka = ClassifierRegistry.create("weka", "weka.classifiers.trees.RandomForest",
-                    "-I 100 -K " + mtry);
+            ClassifierMethod weka = ClassifierRegistry.create("weka", WekaClassifier.settings("weka.classifiers.trees.RandomForest", "-I 100 -K " + mtry));
             Params ours = forest.resolve(Map.of("trees", 100, "min-node-size", 1, "max-depth", 1000));
             double[] a = new double[5];
             double[] b = new double[5];

@@ -35,7 +35,7 @@ class ClassifierReproducibilityTest {
     @MethodSource("methods")
     void givenSameSeed_whenFittedTwice_thenIdenticalPredictions_andAnotherSeedDiffersWhenRandomised(
             String method, String wekaClass, Map<String, Object> raw, boolean randomised) {
-        ClassifierMethod m = ClassifierRegistry.create(method, wekaClass, null);
+        ClassifierMethod m = ClassifierRegistry.create(method, WekaClassifier.settings(wekaClass, null));
         Params params = m.resolve(raw);
         for (ReferenceTable table : List.of(CANCER, IRIS)) {
             int[] fold = table.folds(5, 4);
@@ -56,7 +56,7 @@ class ClassifierReproducibilityTest {
     @MethodSource("methods")
     void givenFourThreadsAtOnce_whenFittingTheSameSeed_thenPredictionsEqualTheSingleThreadOnes(
             String method, String wekaClass, Map<String, Object> raw, boolean randomised) throws Exception {
-        ClassifierMethod m = ClassifierRegistry.create(method, wekaClass, null);
+        ClassifierMethod m = ClassifierRegistry.create(method, WekaClassifier.settings(wekaClass, null));
         Params params = m.resolve(raw);
         for (ReferenceTable table : List.of(CANCER, IRIS)) {
             int[] fold = table.folds(5, 8);

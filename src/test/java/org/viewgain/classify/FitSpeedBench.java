@@ -55,7 +55,7 @@ public final class FitSpeedBench {
 
     private static void time(String label, String method, Map<String, Object> raw, Rows rows, int[] y, int rounds) {
         ThreadMXBean bean = ManagementFactory.getThreadMXBean();
-        ClassifierMethod m = ClassifierRegistry.create(method, null, null);
+        ClassifierMethod m = ClassifierRegistry.create(method);
         Params params = m.resolve(raw);
         FitContext ctx = new FitContext(0, 0, 0, FitContext.WHOLE, FitContext.Role.FINAL, 5L);
         int warm = 3;

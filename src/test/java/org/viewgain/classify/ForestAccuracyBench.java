@@ -22,10 +22,9 @@ public final class ForestAccuracyBench {
         for (String name : new String[] {"iris.csv", "breast-cancer-wisconsin.csv"}) {
             ReferenceTable table = ReferenceTable.load(name);
             int mtry = (int) Math.floor(Math.sqrt(table.rows().p()));
-            ClassifierMethod ours = ClassifierRegistry.create("random-forest", null, null);
-            ClassifierMethod smile = ClassifierRegistry.create("smile-random-forest", null, null);
-            ClassifierMethod weka = ClassifierRegistry.create("weka", "weka.classifiers.trees.RandomForest",
-                    "-I 100 -K " + mtry);
+            ClassifierMethod ours = ClassifierRegistry.create("random-forest");
+            ClassifierMethod smile = ClassifierRegistry.create("smile-random-forest");
+            ClassifierMethod weka = ClassifierRegistry.create("weka", WekaClassifier.settings("weka.classifiers.trees.RandomForest", "-I 100 -K " + mtry));
             Map<String, Object> settings = Map.of("trees", 100, "min-node-size", 1, "max-depth", 1000);
             print(name, "random-forest", ours, ours.resolve(settings), table, repeats);
             print(name, "weka RandomForest", weka, weka.resolve(Map.of()), table, repeats);

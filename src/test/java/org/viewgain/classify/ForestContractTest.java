@@ -24,7 +24,7 @@ class ForestContractTest {
     @ParameterizedTest
     @ValueSource(strings = {"random-forest", "smile-random-forest"})
     void givenScores_whenPredicting_thenClassFractionsSumToOne(String method) {
-        ClassifierMethod forest = ClassifierRegistry.create(method, null, null);
+        ClassifierMethod forest = ClassifierRegistry.create(method);
         int[] fold = IRIS.folds(5, 1);
         Predictions p = Reproducibility.fitAndPredict(forest, small(forest), IRIS,
                 ReferenceTable.positions(fold, 0, false), ReferenceTable.positions(fold, 0, true), 5);
@@ -36,7 +36,7 @@ class ForestContractTest {
     @ParameterizedTest
     @ValueSource(strings = {"random-forest", "smile-random-forest"})
     void givenSameSeed_whenFittedTwice_thenIdenticalScores_andAnotherSeedDiffers(String method) {
-        ClassifierMethod forest = ClassifierRegistry.create(method, null, null);
+        ClassifierMethod forest = ClassifierRegistry.create(method);
         int[] fold = CANCER.folds(5, 3);
         int[] train = ReferenceTable.positions(fold, 0, false);
         int[] test = ReferenceTable.positions(fold, 0, true);
@@ -52,7 +52,7 @@ class ForestContractTest {
     @ValueSource(strings = {"random-forest", "smile-random-forest"})
     void givenFourThreadsAtOnce_whenFittingTheSameSeed_thenEveryResultEqualsTheSingleThreadOne(String method)
             throws Exception {
-        ClassifierMethod forest = ClassifierRegistry.create(method, null, null);
+        ClassifierMethod forest = ClassifierRegistry.create(method);
         int[] fold = CANCER.folds(5, 3);
         int[] train = ReferenceTable.positions(fold, 1, false);
         int[] test = ReferenceTable.positions(fold, 1, true);

@@ -205,7 +205,7 @@ class KernelSvmTest {
     @Test
     void givenIris_whenOneAgainstRest_thenAccuracyAbove90Percent() {
         // RBF SVMs reach about 0.95 on iris (common practice, no source).
-        ClassifierMethod svm = ClassifierRegistry.create("svm-rbf", null, null);
+        ClassifierMethod svm = ClassifierRegistry.create("svm-rbf");
         double accuracy = Crossval.accuracy(svm, svm.resolve(Map.of("C", 10.0)), IRIS, 5, 2);
         assertTrue(accuracy > 0.9, "accuracy " + accuracy);
     }

@@ -22,7 +22,7 @@ class ModelImportanceTest {
     private static final FitContext CTX = new FitContext(0, 0, 0, FitContext.WHOLE, FitContext.Role.FINAL, 3);
 
     static ClassifierMethod.Model fit(String method, Rows x, int[] y, int classes, Map<String, Object> params) {
-        ClassifierMethod m = ClassifierRegistry.create(method, null, null);
+        ClassifierMethod m = ClassifierRegistry.create(method);
         return m.fit(CTX, x, y, classes, m.resolve(params));
     }
 
@@ -154,7 +154,7 @@ class ModelImportanceTest {
     void givenMethodsWithoutImportance_whenAsked_thenNull() {
         assertNull(fit("svm-rbf", IRIS.rows(), IRIS.y(), 3, Map.of()).importance());
         assertNull(fit("knn", IRIS.rows(), IRIS.y(), 3, Map.of()).importance());
-        ClassifierMethod weka = ClassifierRegistry.create("weka", "weka.classifiers.trees.J48", null);
+        ClassifierMethod weka = ClassifierRegistry.create("weka", WekaClassifier.settings("weka.classifiers.trees.J48", null));
         ClassifierMethod.Model j48 = weka.fit(CTX, IRIS.rows(), IRIS.y(), 3, Params.NONE);
         assertNull(j48.importance());
         assertNull(j48.importanceKind());

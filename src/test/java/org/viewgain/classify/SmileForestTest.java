@@ -9,7 +9,7 @@ import org.junit.jupiter.api.Test;
 class SmileForestTest {
 
     private static final ReferenceTable IRIS = ReferenceTable.load("iris.csv");
-    private final ClassifierMethod forest = ClassifierRegistry.create("smile-random-forest", null, null);
+    private final ClassifierMethod forest = ClassifierRegistry.create("smile-random-forest");
 
     @Test
     void givenIris_whenFiveFoldCrossValidated_thenAccuracyAbove90Percent() {
@@ -28,7 +28,7 @@ class SmileForestTest {
     @Test
     void givenUnknownMethod_whenCreating_thenOneLineMessageListsMethods() {
         IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
-                () -> ClassifierRegistry.create("forest", null, null));
+                () -> ClassifierRegistry.create("forest"));
         assertTrue(e.getMessage().contains("random-forest") && !e.getMessage().contains("\n"), e.getMessage());
     }
 }

@@ -32,7 +32,7 @@ class SmileLinearAndNeighbourTest {
     void givenIris_whenPlainLdaFittedOnAllRows_thenThreeResubstitutionErrors() {
         // Fisher's discriminant on all 150 iris flowers misclassifies 3 (2 versicolor, 1 virginica); from memory
         // (R MASS::lda resubstitution table), exact count, no tolerance.
-        ClassifierMethod lda = ClassifierRegistry.create("lda", null, null);
+        ClassifierMethod lda = ClassifierRegistry.create("lda");
         Predictions p = lda.fit(CTX, IRIS.rows(), IRIS.y(), 3, lda.resolve(Map.of("shrinkage", 0.0)))
                 .predict(IRIS.rows());
         assertEquals(3, errors(p, IRIS.y()));
@@ -45,7 +45,7 @@ class SmileLinearAndNeighbourTest {
     void givenConstantColumn_whenLdaWithoutShrinkage_thenFiniteScores() {
         double[][] x = {{0, 5}, {1, 5}, {2, 5}, {8, 5}, {9, 5}, {10, 5}};
         Rows rows = new Rows(List.of("a", "b", "c", "d", "e", "f"), x, List.of("v", "constant"));
-        ClassifierMethod lda = ClassifierRegistry.create("lda", null, null);
+        ClassifierMethod lda = ClassifierRegistry.create("lda");
         Predictions p = lda.fit(CTX, rows, new int[] {0, 0, 0, 1, 1, 1}, 2, lda.resolve(Map.of("shrinkage", 0.0)))
                 .predict(rows);
         assertArrayEquals(new int[] {0, 0, 0, 1, 1, 1}, p.labels());
@@ -58,7 +58,7 @@ class SmileLinearAndNeighbourTest {
     void givenBreastCancer_whenLogisticAndShrunkLdaCrossValidated_thenAccuracyAbove93Percent() {
         // Linear models reach about 0.95-0.97 on standardized WDBC (common practice, no source).
         for (String method : List.of("logistic", "lda")) {
-            ClassifierMethod m = ClassifierRegistry.create(method, null, null);
+            ClassifierMethod m = ClassifierRegistry.create(method);
             double accuracy = Crossval.accuracy(m, m.resolve(Map.of()), CANCER, 5, 6);
             assertTrue(accuracy > 0.93, method + " accuracy " + accuracy);
         }
@@ -67,7 +67,7 @@ class SmileLinearAndNeighbourTest {
     @Test
     void givenIris_whenMultinomialLogisticCrossValidated_thenAccuracyAbove90Percent() {
         // Multinomial logistic regression reaches about 0.95 on iris (common practice, no source).
-        ClassifierMethod m = ClassifierRegistry.create("logistic", null, null);
+        ClassifierMethod m = ClassifierRegistry.create("logistic");
         double accuracy = Crossval.accuracy(m, m.resolve(Map.of("lambda", 0.01)), IRIS, 5, 6);
         assertTrue(accuracy > 0.9, "accuracy " + accuracy);
     }
@@ -79,7 +79,7 @@ class SmileLinearAndNeighbourTest {
         Rows train = new Rows(List.of("a", "b", "c", "d", "e"), new double[][] {{0}, {1}, {2}, {10}, {11}},
                 List.of("v"));
         Rows query = new Rows(List.of("q", "r"), new double[][] {{1.5}, {9}}, List.of("v"));
-        ClassifierMethod knn = ClassifierRegistry.create("knn", null, null);
+        ClassifierMethod knn = ClassifierRegistry.create("knn");
         Predictions p = knn.fit(CTX, train, new int[] {0, 0, 0, 1, 1}, 2, knn.resolve(Map.of("k", 3)))
                 .predict(query);
         assertArrayEquals(new double[] {1.0, 0.0}, p.scores()[0], 1e-15);
@@ -90,7 +90,7 @@ class SmileLinearAndNeighbourTest {
     @Test
     void givenKLargerThanTrainingRows_whenFitting_thenClearError() {
         Rows train = new Rows(List.of("a", "b"), new double[][] {{0}, {1}}, List.of("v"));
-        ClassifierMethod knn = ClassifierRegistry.create("knn", null, null);
+        ClassifierMethod knn = ClassifierRegistry.create("knn");
         Params params = knn.resolve(Map.of("k", 5));
         IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
                 () -> knn.fit(CTX, train, new int[] {0, 1}, 2, params));

@@ -15,7 +15,7 @@ class SmileSvmTest {
     @Test
     void givenBreastCancer_whenLinearSvmCrossValidated_thenAccuracyAbove93Percent() {
         // Linear SVMs reach about 0.97 on standardized WDBC (common practice, no source).
-        ClassifierMethod svm = ClassifierRegistry.create("svm-linear", null, null);
+        ClassifierMethod svm = ClassifierRegistry.create("svm-linear");
         double accuracy = Crossval.accuracy(svm, svm.resolve(Map.of()), CANCER, 5, 2);
         assertTrue(accuracy > 0.93, "accuracy " + accuracy);
     }
@@ -23,14 +23,14 @@ class SmileSvmTest {
     @Test
     void givenIris_whenRbfSvmOneVersusRest_thenAccuracyAbove90Percent() {
         // RBF SVMs reach about 0.95 on iris (common practice, no source).
-        ClassifierMethod svm = ClassifierRegistry.create("smile-svm-rbf", null, null);
+        ClassifierMethod svm = ClassifierRegistry.create("smile-svm-rbf");
         double accuracy = Crossval.accuracy(svm, svm.resolve(Map.of("C", 10.0)), IRIS, 5, 2);
         assertTrue(accuracy > 0.9, "accuracy " + accuracy);
     }
 
     @Test
     void givenTwoClasses_whenPredicting_thenClassOneScoreIsTheDecisionValueAndSignGivesTheLabel() {
-        ClassifierMethod svm = ClassifierRegistry.create("smile-svm-rbf", null, null);
+        ClassifierMethod svm = ClassifierRegistry.create("smile-svm-rbf");
         Params params = svm.resolve(Map.of());
         int[] fold = CANCER.folds(5, 9);
         Predictions p = Reproducibility.fitAndPredict(svm, params, CANCER, ReferenceTable.positions(fold, 0, false),

@@ -24,11 +24,10 @@ class WekaClassifierTest {
     void givenSameFolds_whenWekaAndSmileForestsCrossValidated_thenAccuraciesAgreeWithinFivePoints() {
         // Two implementations of Breiman's forest should agree within a few points (common practice, no source);
         // features per split matched: sqrt(p) rounded down, 2 for iris and 5 for WDBC.
-        ClassifierMethod smile = ClassifierRegistry.create("random-forest", null, null);
+        ClassifierMethod smile = ClassifierRegistry.create("random-forest");
         for (ReferenceTable table : new ReferenceTable[] {IRIS, CANCER}) {
             int mtry = (int) Math.floor(Math.sqrt(table.rows().p()));
-            ClassifierMethod weka = ClassifierRegistry.create("weka", "weka.classifiers.trees.RandomForest",
-                    "-I 100 -K " + mtry);
+            ClassifierMethod weka = ClassifierRegistry.create("weka", WekaClassifier.settings("weka.classifiers.trees.RandomForest", "-I 100 -K " + mtry));
             double a = Crossval.accuracy(smile, smile.resolve(Map.of("trees", 100)), table, 5, 21);
             double b = Crossval.accuracy(weka, weka.resolve(Map.of()), table, 5, 21);
             assertEquals(a, b, 0.05, "smile " + a + " weka " + b);
@@ -45,39 +44,38 @@ class WekaClassifierTest {
 
     @Test
     void givenWrongClassName_whenCreating_thenOneLineMessageNamesIt() {
-        String m = oneLineError(() -> ClassifierRegistry.create("weka", "weka.classifiers.trees.NoSuchForest", null));
+        String m = oneLineError(() -> ClassifierRegistry.create("weka", WekaClassifier.settings("weka.classifiers.trees.NoSuchForest", null)));
         assertTrue(m.contains("NoSuchForest") && m.contains("does not exist"), m);
     }
 
     @Test
     void givenClassThatIsNotAClassifier_whenCreating_thenOneLineMessage() {
-        String m = oneLineError(() -> ClassifierRegistry.create("weka", "weka.core.Instances", null));
+        String m = oneLineError(() -> ClassifierRegistry.create("weka", WekaClassifier.settings("weka.core.Instances", null)));
         assertTrue(m.contains("not a Weka classifier"), m);
     }
 
     @Test
     void givenBadBaseOption_whenCreating_thenOneLineMessage() {
-        String m = oneLineError(() -> ClassifierRegistry.create("weka", "weka.classifiers.trees.RandomForest",
-                "-I many"));
+        String m = oneLineError(() -> ClassifierRegistry.create("weka", WekaClassifier.settings("weka.classifiers.trees.RandomForest", "-I many")));
         assertTrue(m.contains("rejects"), m);
     }
 
     @Test
     void givenUnknownFlagInGrid_whenResolving_thenOneLineMessage() {
-        ClassifierMethod weka = ClassifierRegistry.create("weka", "weka.classifiers.functions.Logistic", null);
+        ClassifierMethod weka = ClassifierRegistry.create("weka", WekaClassifier.settings("weka.classifiers.functions.Logistic", null));
         String m = oneLineError(() -> weka.resolve(Map.of("-Q", 3)));
         assertTrue(m.contains("-Q"), m);
     }
 
     @Test
     void givenKeyWithoutDash_whenResolving_thenOneLineMessage() {
-        ClassifierMethod weka = ClassifierRegistry.create("weka", "weka.classifiers.functions.Logistic", null);
+        ClassifierMethod weka = ClassifierRegistry.create("weka", WekaClassifier.settings("weka.classifiers.functions.Logistic", null));
         String m = oneLineError(() -> weka.resolve(Map.of("ridge", 1.0)));
         assertTrue(m.contains("'-'"), m);
     }
 
     @Test
     void givenWekaClassForAnotherMethod_whenCreating_thenOneLineMessage() {
-        oneLineError(() -> ClassifierRegistry.create("knn", "weka.classifiers.functions.Logistic", null));
+        oneLineError(() -> ClassifierRegistry.create("knn", WekaClassifier.settings("weka.classifiers.functions.Logistic", null)));
     }
 }

@@ -32,7 +32,7 @@ class ReadmeTest {
         for (String m : ClassifierRegistry.methods()) {
             assertTrue(text.contains("`" + m + "`"), "classifier " + m);
             if (!m.equals("weka")) {
-                for (ParamDef d : ClassifierRegistry.create(m, null, null).parameters()) {
+                for (ParamDef d : ClassifierRegistry.create(m).parameters()) {
                     assertTrue(text.contains("`" + d.name() + "`"), m + "." + d.name());
                 }
             }

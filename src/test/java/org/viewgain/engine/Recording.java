@@ -61,8 +61,8 @@ final class Recording implements Methods {
     }
 
     @Override
-    public ClassifierMethod classifier(String method, String wekaClass, String wekaOptions) {
-        ClassifierMethod d = real.classifier(method, wekaClass, wekaOptions);
+    public ClassifierMethod classifier(String method, Map<String, String> settings) {
+        ClassifierMethod d = real.classifier(method, settings);
         return new ClassifierMethod() {
             @Override
             public String method() {
