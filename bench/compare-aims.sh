@@ -1,0 +1,40 @@
+#!/usr/bin/env bash
+# Issue 12's cases for an older build and this one, alternating in one sitting, each run as its own launcher ran
+# it (the old one with the JVM's default collector unless OLD_OPTS says otherwise; this one with the serial
+# collector, as ./viewgain does on up to 4 processors). One markdown row per run.
+#   bench/compare-aims.sh OLD_ROOT [CASES]      CASES default: "demo demo chance nested apply"
+# chance is demo-chance.yaml with 49 permutations and no early stop; nested is bench/specs/nested-160x35.yaml;
+# apply needs the bundle and cohort of bench/apply.sh under bench/work/.
+set -euo pipefail
+here="$(cd "$(dirname "${BASH_SOURCE[0]}")" && pwd)"
+root="$(dirname "$here")"
+old="$(cd "$1" && pwd)"
+cases="${2:-demo demo chance nested apply}"
+tmp="$(mktemp -d)"
+trap 'rm -rf "$tmp"' EXIT
+(cd "$root" && mvn -q -o -B -Dmaven.test.skip=true package)
+sed -e "s#\.\./demo-data#$root/demo-data#g" "$root/experiment-specs/demo.yaml" > "$tmp/demo.yaml"
+sed -e "s#\.\./demo-data#$root/demo-data#g" -e "s/permutations: [0-9]*/permutations: 49/" \
+  -e "s/early-stop: [0-9]*/early-stop: 0/" "$root/experiment-specs/demo-chance.yaml" > "$tmp/chance.yaml"
+[ -f "$here/work/c160x35/subjects.csv" ] || \
+  java -cp "$root/target/viewgain.jar:$root/target/lib/*" org.viewgain.demo.ScaleCohort "$here/work/c160x35" 160 35 1
+sed "s#\.\./work#$here/work#g" "$here/specs/nested-160x35.yaml" > "$tmp/nested.yaml"
+sed "s#\.\./work#$here/work#g" "$here/specs/apply-cohort-1000x268.yaml" > "$tmp/cohort.yaml"
+bundle="$(find "$here/work/apply-run" -name manifest.json -path '*/bundle/*' 2>/dev/null | head -1 | xargs -r dirname)"
+echo "| case | build | wall s | user s | sys s | peak RSS MB | load before |"
+echo "|---|---|---|---|---|---|---|"
+for c in $cases; do
+  for which in old new; do
+    if [ "$which" = old ]; then cp="$old/target/viewgain.jar:$old/target/lib/*"; opts="${OLD_OPTS:-}"
+    else cp="$root/target/viewgain.jar:$root/target/lib/*"; opts="-XX:+UseSerialGC"; fi
+    case "$c" in
+      apply) args=(apply "$bundle" "$tmp/cohort.yaml" --out "$tmp/out") ;;
+      *) args=(run "$tmp/$c.yaml" --out "$tmp/out" --quiet) ;;
+    esac
+    rm -rf "$tmp/out"
+    load="$(cut -d' ' -f1 /proc/loadavg)"
+    /usr/bin/time -f "%e %U %S %M" -o "$tmp/time" java $opts -cp "$cp" org.viewgain.cli.Main "${args[@]}" \
+      > "$tmp/log" 2>&1 || { cat "$tmp/log" >&2; exit 1; }
+    echo "| $c | $which | $(awk '{printf "%s | %s | %s | %d", $1, $2, $3, $4 / 1024}' "$tmp/time") | $load |"
+  done
+done
