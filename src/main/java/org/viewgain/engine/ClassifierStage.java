@@ -3,7 +3,6 @@ package org.viewgain.engine;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
-import java.util.Map;
 import org.viewgain.classify.ClassifierMethod;
 import org.viewgain.classify.Predictions;
 import org.viewgain.cohort.Extractors;
