@@ -1,5 +1,6 @@
 package org.viewgain.classify;
 
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -12,6 +13,7 @@ import de.bwaldvogel.liblinear.SolverType;
 import java.util.Random;
 import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
+import org.viewgain.folds.FitContext;
 
 /**
  * The {@code svm-linear} solver against LIBLINEAR 2.44 (Fan et al. 2008, JMLR 9:1871-1874; the Java port by
@@ -194,6 +196,96 @@ class LinearSvmTest {
             }
             assertTrue(right > 0.99 * pairs, "training AUC " + (double) right / pairs + " at C " + c);
             assertTrue(m.passes() < 1000, "converged in " + m.passes() + " passes");
+        }
+    }
+
+    /**
+     * The Gram-matrix solver takes the same steps as the primal one (same seeded order, same updates), so both end
+     * with the same passes and the same weights up to rounding (1e-9 of the largest weight), on breast-cancer-wisconsin
+     * (Wolberg et al. 1995) and on wide invented data at the C values of the demo's grid; at tolerance 1e-6 it also
+     * reaches LIBLINEAR's weights (the reference of {@link #assertSameWeights}).
+     */
+    @Test
+    void givenTheGramSolver_whenSolved_thenThePrimalSolversStepsAndLiblinearsWeights() {
+        ReferenceTable cancer = ReferenceTable.load("breast-cancer-wisconsin.csv").standardized();
+        double[][] wdbc = java.util.Arrays.copyOf(cancer.rows().x(), 120);
+        int[] wdbcSigns = new int[wdbc.length];
+        for (int i = 0; i < wdbc.length; i++) {
+            wdbcSigns[i] = cancer.y()[i] == 1 ? 1 : -1;
+        }
+        SplittableRandom rnd = new SplittableRandom(5);
+        double[][] wide = new double[64][441];
+        int[] wideSigns = new int[wide.length];
+        for (int i = 0; i < wide.length; i++) {
+            wideSigns[i] = i % 2 == 0 ? 1 : -1;
+            for (int j = 0; j < wide[i].length; j++) {
+                wide[i][j] = rnd.nextGaussian() + (j < 20 ? 0.3 * wideSigns[i] : 0);
+            }
+        }
+        for (Object[] c : new Object[][] {{wdbc, wdbcSigns}, {wide, wideSigns}}) {
+            double[][] x = (double[][]) c[0];
+            int[] signs = (int[]) c[1];
+            double[][] gram = LinearSvm.gram(x);
+            for (double cost : new double[] {0.001, 0.1, 1.0}) {
+                LinearSvm.Machine primal = LinearSvm.solve(x, signs, cost, 0.1, 1000, 11);
+                LinearSvm.Machine dual = LinearSvm.solveGram(gram, x, signs, cost, 0.1, 1000, 11);
+                assertEquals(primal.passes(), dual.passes(), "passes at C " + cost);
+                double scale = java.util.Arrays.stream(primal.w()).map(Math::abs).max().orElse(1);
+                for (int j = 0; j < primal.w().length; j++) {
+                    assertEquals(primal.w()[j], dual.w()[j], 1e-9 * scale, "weight " + j + " at C " + cost);
+                }
+                assertEquals(primal.b(), dual.b(), 1e-9 * Math.max(1, Math.abs(primal.b())), "intercept at C " + cost);
+                // and against LIBLINEAR at a tight tolerance, as the primal solver is checked
+                LinearSvm.Machine tight = LinearSvm.solveGram(gram, x, signs, cost, 1e-6, 100_000, 11);
+                double[] ref = liblinear(x, signs, cost, 1e-6);
+                double[] w = java.util.Arrays.copyOf(tight.w(), x[0].length + 1);
+                w[x[0].length] = tight.b();
+                assertTrue(objective(x, signs, cost, w) <= objective(x, signs, cost, ref) * (1 + 1e-3),
+                        "objective against LIBLINEAR at C " + cost);
+            }
+        }
+    }
+
+    /**
+     * A grid fitted together on wide rows goes through the Gram matrix, and its models decide as the points fitted
+     * one by one (the primal solver) to 1e-9, for two classes and for three (iris, Fisher 1936, with invented noise
+     * columns to make it wide).
+     */
+    @Test
+    void givenAGridOnWideRows_whenFittedTogether_thenTheSameDecisionsAsOneByOne() {
+        ReferenceTable iris = ReferenceTable.load("iris.csv").standardized();
+        SplittableRandom rnd = new SplittableRandom(9);
+        int n = iris.y().length / 2; // every other flower (25 per species), so the grid takes the Gram path
+        double[][] x = new double[n][4 + 300];
+        int[] y = new int[n];
+        for (int i = 0; i < n; i++) {
+            System.arraycopy(iris.rows().x()[2 * i], 0, x[i], 0, 4);
+            y[i] = iris.y()[2 * i];
+            for (int j = 4; j < x[i].length; j++) {
+                x[i][j] = rnd.nextGaussian();
+            }
+        }
+        java.util.List<String> names = new java.util.ArrayList<>();
+        for (int j = 0; j < x[0].length; j++) {
+            names.add("c" + j);
+        }
+        java.util.List<String> ids = new java.util.ArrayList<>();
+        for (int i = 0; i < n; i++) {
+            ids.add("s" + i);
+        }
+        org.viewgain.cohort.Rows rows = new org.viewgain.cohort.Rows(ids, x, names);
+        LinearSvm svm = new LinearSvm();
+        FitContext ctx = new FitContext(0, 0, 0, FitContext.WHOLE, FitContext.Role.FINAL, 3L);
+        java.util.List<org.viewgain.spec.Params> grid = java.util.List.of(svm.resolve(java.util.Map.of("C", 0.001)),
+                svm.resolve(java.util.Map.of("C", 0.1)));
+        assertTrue(n < 60 * grid.size() && n < x[0].length, "the grid takes the Gram path");
+        java.util.List<ClassifierMethod.Model> together = svm.fitGrid(java.util.List.of(ctx, ctx), rows, y, 3, grid);
+        for (int g = 0; g < grid.size(); g++) {
+            Predictions a = together.get(g).predict(rows);
+            Predictions b = svm.fit(ctx, rows, y, 3, grid.get(g)).predict(rows);
+            for (int i = 0; i < n; i++) {
+                assertArrayEquals(b.scores()[i], a.scores()[i], 1e-9, "subject " + i + " point " + g);
+            }
         }
     }
 }
