@@ -131,18 +131,70 @@ public final class BinnedForest implements ClassifierMethod {
             int p = n == 0 ? 0 : x[0].length;
             byte[][] code = new byte[p][n];
             double[][] edges = new double[p][];
+            double[] column = new double[n];
             double[] sorted = new double[n];
+            int[] order = new int[n];
+            int[] scratch = new int[n];
             for (int j = 0; j < p; j++) {
                 for (int i = 0; i < n; i++) {
-                    sorted[i] = x[i][j];
+                    column[i] = x[i][j];
+                    order[i] = i;
                 }
-                Arrays.sort(sorted);
-                edges[j] = edges(sorted);
-                for (int i = 0; i < n; i++) {
-                    code[j][i] = (byte) bin(edges[j], x[i][j]);
+                sortByValue(column, order, scratch, 0, n);
+                for (int k = 0; k < n; k++) {
+                    sorted[k] = column[order[k]];
+                }
+                double[] e = edges(sorted);
+                edges[j] = e;
+                // the bin of a value is the number of edges strictly below it: one walk up the sorted values
+                // gives every row's bin (as bin() would, without a search per value)
+                byte[] c = code[j];
+                int b = 0;
+                for (int k = 0; k < n; k++) {
+                    double v = sorted[k];
+                    while (b < e.length && e[b] < v) {
+                        b++;
+                    }
+                    c[order[k]] = (byte) b;
                 }
             }
             return new Bins(code, edges, n);
+        }
+
+        /**
+         * Sorts {@code order[from, to)} by {@code value[order[.]]} ascending (merge sort, insertion sort for short
+         * runs). Equal values may come in any order: the edges and bins depend on the values only.
+         */
+        static void sortByValue(double[] value, int[] order, int[] scratch, int from, int to) {
+            if (to - from <= 24) {
+                for (int i = from + 1; i < to; i++) {
+                    int o = order[i];
+                    double v = value[o];
+                    int k = i - 1;
+                    while (k >= from && value[order[k]] > v) {
+                        order[k + 1] = order[k];
+                        k--;
+                    }
+                    order[k + 1] = o;
+                }
+                return;
+            }
+            int mid = (from + to) >>> 1;
+            sortByValue(value, order, scratch, from, mid);
+            sortByValue(value, order, scratch, mid, to);
+            if (value[order[mid - 1]] <= value[order[mid]]) {
+                return; // already in order
+            }
+            System.arraycopy(order, from, scratch, from, to - from);
+            int a = from;
+            int b = mid;
+            for (int k = from; k < to; k++) {
+                if (b >= to || (a < mid && value[scratch[a]] <= value[scratch[b]])) {
+                    order[k] = scratch[a++];
+                } else {
+                    order[k] = scratch[b++];
+                }
+            }
         }
 
         /** Midpoints between consecutive distinct values, or at quantile cuts when there are too many. */
