@@ -71,10 +71,6 @@ public final class LinearSvm implements ClassifierMethod {
      */
     static Machine solve(double[][] x, int[] signs, double c, double tolerance, int iterations, long seed) {
         int n = x.length;
-        int p = x[0].length;
-        double[] w = new double[p];
-        double b = 0; // the weight of the constant input 1
-        double[] alpha = new double[n];
         double[] qii = new double[n];
         for (int i = 0; i < n; i++) {
             double s = 1; // the constant input
@@ -83,56 +79,9 @@ public final class LinearSvm implements ClassifierMethod {
             }
             qii[i] = s;
         }
-        int[] order = new int[n];
-        for (int i = 0; i < n; i++) {
-            order[i] = i;
-        }
-        SplittableRandom rnd = new SplittableRandom(seed);
-        int pass = 0;
-        boolean converged = false;
-        while (pass < iterations) {
-            pass++;
-            for (int i = n - 1; i > 0; i--) {
-                int j = rnd.nextInt(i + 1);
-                int t = order[i];
-                order[i] = order[j];
-                order[j] = t;
-            }
-            double maxPg = Double.NEGATIVE_INFINITY;
-            double minPg = Double.POSITIVE_INFINITY;
-            for (int k = 0; k < n; k++) {
-                int i = order[k];
-                double[] xi = x[i];
-                int yi = signs[i];
-                // four running sums: a single one is bound by the latency of each addition
-                double dot = b + RbfKernel.dot(w, xi);
-                double g = yi * dot - 1;
-                double pg = g;
-                if (alpha[i] == 0) {
-                    pg = Math.min(g, 0);
-                } else if (alpha[i] == c) {
-                    pg = Math.max(g, 0);
-                }
-                maxPg = Math.max(maxPg, pg);
-                minPg = Math.min(minPg, pg);
-                if (pg != 0) {
-                    double old = alpha[i];
-                    alpha[i] = Math.min(Math.max(old - g / qii[i], 0), c);
-                    double step = (alpha[i] - old) * yi;
-                    if (step != 0) {
-                        for (int j = 0; j < p; j++) {
-                            w[j] += step * xi[j];
-                        }
-                        b += step;
-                    }
-                }
-            }
-            if (maxPg - minPg <= tolerance) {
-                converged = true;
-                break;
-            }
-        }
-        return new Machine(w, b, pass, converged);
+        Primal primal = new Primal(x);
+        Descent d = descend(primal, qii, signs, c, tolerance, iterations, seed);
+        return new Machine(primal.w, primal.b, d.passes(), d.converged());
     }
 
     /** The rows' Gram matrix with the constant input: {@code K[i][j] = x_i . x_j + 1} (symmetric). */
@@ -150,17 +99,106 @@ public final class LinearSvm implements ClassifierMethod {
     }
 
     /**
-     * {@link #solve} on the Gram matrix: the same coordinate descent (the same rows in the same seeded order, the same
-     * steps and stopping rule), keeping the decision values {@code f_i = w.x_i + b} of all rows up to date instead of
-     * the weights (a step moves them by {@code d K[i]}), and forming {@code w} and {@code b} from the duals at the
-     * end. Equal to {@link #solve} up to rounding (checked in tests).
+     * {@link #solve} on the Gram matrix: the same coordinate descent ({@link #descend}), keeping the decision values
+     * of all rows up to date instead of the weights (a step moves them by {@code d K[i]}), and forming {@code w} and
+     * {@code b} from the duals at the end. Equal to {@link #solve} up to rounding (checked in tests).
      */
     static Machine solveGram(double[][] gram, double[][] x, int[] signs, double c, double tolerance, int iterations,
                              long seed) {
         int n = x.length;
         int p = x[0].length;
+        double[] qii = new double[n];
+        for (int i = 0; i < n; i++) {
+            qii[i] = gram[i][i];
+        }
+        Descent d = descend(new Dual(gram), qii, signs, c, tolerance, iterations, seed);
+        double[] w = new double[p];
+        double b = 0;
+        for (int i = 0; i < n; i++) {
+            double a = d.alpha()[i] * signs[i];
+            if (a != 0) {
+                double[] xi = x[i];
+                for (int j = 0; j < p; j++) {
+                    w[j] += a * xi[j];
+                }
+                b += a;
+            }
+        }
+        return new Machine(w, b, d.passes(), d.converged());
+    }
+
+    /** The decision values {@code w.x_i + b} the descent reads, and how a step on one dual moves them. */
+    private interface Decisions {
+        double value(int i);
+
+        /** After alpha_i changed by {@code step / y_i}: w += step x_i and b += step. */
+        void move(int i, double step);
+    }
+
+    /** Decisions kept as the weights themselves (a step costs p). */
+    private static final class Primal implements Decisions {
+        private final double[][] x;
+        final double[] w;
+        double b; // the weight of the constant input 1
+
+        Primal(double[][] x) {
+            this.x = x;
+            this.w = new double[x[0].length];
+        }
+
+        @Override
+        public double value(int i) {
+            // four running sums: a single one is bound by the latency of each addition
+            return b + RbfKernel.dot(w, x[i]);
+        }
+
+        @Override
+        public void move(int i, double step) {
+            double[] xi = x[i];
+            for (int j = 0; j < w.length; j++) {
+                w[j] += step * xi[j];
+            }
+            b += step;
+        }
+    }
+
+    /** Decisions kept as the values of every row, moved by a column of the Gram matrix (a step costs n). */
+    private static final class Dual implements Decisions {
+        private final double[][] gram;
+        private final double[] f;
+
+        Dual(double[][] gram) {
+            this.gram = gram;
+            this.f = new double[gram.length];
+        }
+
+        @Override
+        public double value(int i) {
+            return f[i];
+        }
+
+        @Override
+        public void move(int i, double step) {
+            double[] ki = gram[i];
+            for (int r = 0; r < f.length; r++) {
+                f[r] += step * ki[r];
+            }
+        }
+    }
+
+    /** The duals at the end, the passes made and whether the stopping rule held. */
+    private record Descent(double[] alpha, int passes, boolean converged) {
+    }
+
+    /**
+     * Coordinate descent on the dual (Hsieh et al. 2008, Algorithm 1): the rows in a seeded random order each pass;
+     * a step clips {@code alpha_i - g / Q_ii} to [0, C]; stops when the projected gradient's spread is at most
+     * {@code tolerance} or after {@code iterations} passes.
+     */
+    private static Descent descend(Decisions d, double[] qii, int[] signs, double c, double tolerance,
+                                   int iterations, long seed) {
+        int n = qii.length;
         double[] alpha = new double[n];
-        double[] f = new double[n];
         int[] order = new int[n];
         for (int i = 0; i < n; i++) {
             order[i] = i;
@@ -181,7 +219,7 @@ public final class LinearSvm implements ClassifierMethod {
             for (int k = 0; k < n; k++) {
                 int i = order[k];
                 int yi = signs[i];
-                double g = yi * f[i] - 1;
+                double g = yi * d.value(i) - 1;
                 double pg = g;
                 if (alpha[i] == 0) {
                     pg = Math.min(g, 0);
@@ -192,13 +230,10 @@ public final class LinearSvm implements ClassifierMethod {
                 minPg = Math.min(minPg, pg);
                 if (pg != 0) {
                     double old = alpha[i];
-                    alpha[i] = Math.min(Math.max(old - g / gram[i][i], 0), c);
+                    alpha[i] = Math.min(Math.max(old - g / qii[i], 0), c);
                     double step = (alpha[i] - old) * yi;
                     if (step != 0) {
-                        double[] ki = gram[i];
-                        for (int r = 0; r < n; r++) {
-                            f[r] += step * ki[r];
-                        }
+                        d.move(i, step);
                     }
                 }
             }
@@ -207,19 +242,7 @@ public final class LinearSvm implements ClassifierMethod {
                 break;
             }
         }
-        double[] w = new double[p];
-        double b = 0;
-        for (int i = 0; i < n; i++) {
-            double a = alpha[i] * signs[i];
-            if (a != 0) {
-                double[] xi = x[i];
-                for (int j = 0; j < p; j++) {
-                    w[j] += a * xi[j];
-                }
-                b += a;
-            }
-        }
-        return new Machine(w, b, pass, converged);
+        return new Descent(alpha, pass, converged);
     }
 
     @Override

@@ -77,7 +77,7 @@ final class MatrixFile {
         int start = 0;
         int line = 1;
         CsvText.Row header = null;
-        boolean first = true;
+        List<String> firstCells = null;
         int skip = 0;
         int width = -1;
         List<double[]> rows = new ArrayList<>();
@@ -85,9 +85,9 @@ final class MatrixFile {
         while (start <= n) {
             int end = CsvText.lineEnd(text, start);
             if (!CsvText.blank(text, start, end)) {
-                if (first) {
-                    first = false;
-                    CsvText.Row r = new CsvText.Row(line, CsvText.cells(text, start, end));
+                if (firstCells == null) {
+                    firstCells = CsvText.cells(text, start, end);
+                    CsvText.Row r = new CsvText.Row(line, firstCells);
                     if (isHeader(r)) {
                         header = r;
                         start = end < n ? CsvText.nextLine(text, end) : n + 1;
@@ -96,7 +96,7 @@ final class MatrixFile {
                     }
                 }
                 if (width < 0) {
-                    List<String> cells = CsvText.cells(text, start, end);
+                    List<String> cells = header == null ? firstCells : CsvText.cells(text, start, end);
                     skip = Cells.isName(cells.get(0)) ? 1 : 0;
                     width = cells.size() - skip;
                     rowNames = skip == 1 ? new ArrayList<>() : null;

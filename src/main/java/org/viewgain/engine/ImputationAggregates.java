@@ -70,7 +70,7 @@ public final class ImputationAggregates {
             }
             double[] foldMae = perFold.values().stream().mapToDouble(a -> a[0] / a[1]).toArray();
             out.add(new SummaryRow(imputer, rows.size(), foldMae.length,
-                    finiteMean(rows, RunResults.ImputationRow::mae), sd(foldMae),
+                    finiteMean(rows, RunResults.ImputationRow::mae), Evaluation.sd(foldMae),
                     finiteMean(rows, RunResults.ImputationRow::rmse),
                     finiteMean(rows, RunResults.ImputationRow::pearsonR),
                     finiteMean(rows, RunResults.ImputationRow::strengthMae),
@@ -96,22 +96,5 @@ public final class ImputationAggregates {
             }
         }
         return n > 0 ? s / n : Double.NaN;
-    }
-
-    /** Sample standard deviation (n - 1); NaN for fewer than two values. */
-    private static double sd(double[] v) {
-        if (v.length < 2) {
-            return Double.NaN;
-        }
-        double m = 0;
-        for (double x : v) {
-            m += x;
-        }
-        m /= v.length;
-        double ss = 0;
-        for (double x : v) {
-            ss += (x - m) * (x - m);
-        }
-        return Math.sqrt(ss / (v.length - 1));
     }
 }

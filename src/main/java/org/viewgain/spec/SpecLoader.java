@@ -280,8 +280,9 @@ public final class SpecLoader {
         Section inner = s.section("inner", false);
         inner.allowOnly(Set.of("folds"));
         int innerFolds = inner.integer("folds", 3, 2, 100);
-        Specs.Metric tuneBy = Specs.Metric.bySpec(s.choice("tune-by", Specs.Metric.spellings(),
-                Specs.Metric.BALANCED_ACCURACY.spec()));
+        Specs.Metric tuneBy = Specs.byLabel(Specs.Metric.class, s.choice("tune-by",
+                Specs.labels(Specs.Metric.class, Specs.Metric::spec), Specs.Metric.BALANCED_ACCURACY.spec()),
+                Specs.Metric::spec);
         return new Specs.Validation(scheme, folds, repeats, innerFolds, tuneBy);
     }
 
@@ -294,8 +295,8 @@ public final class SpecLoader {
         if (earlyStop > 0 && permutations > 0 && earlyStop > permutations) {
             s.problems.add(s.key("early-stop"), "h = " + earlyStop + " exceeds permutations = " + permutations);
         }
-        Specs.Metric metric = Specs.Metric.bySpec(s.choice("metric", Specs.Metric.spellings(),
-                validation.tuneBy().spec()));
+        Specs.Metric metric = Specs.byLabel(Specs.Metric.class, s.choice("metric",
+                Specs.labels(Specs.Metric.class, Specs.Metric::spec), validation.tuneBy().spec()), Specs.Metric::spec);
         double alpha = s.number("alpha", 0.05, 1e-9, 0.5);
         List<String> defaults = new ArrayList<>();
         if (sets.contains(FeatureSet.SOURCE_IMPUTED) && sets.contains(FeatureSet.SOURCE)) {

@@ -271,21 +271,6 @@ public final class Specs {
         public String column() {
             return column;
         }
-
-        /** Every spec spelling, in order (for the loader's list of allowed values). */
-        public static List<String> spellings() {
-            return java.util.Arrays.stream(values()).map(Metric::spec).toList();
-        }
-
-        /** The metric a spec spelling names; IllegalArgumentException for another text. */
-        public static Metric bySpec(String spelling) {
-            for (Metric m : values()) {
-                if (m.spec.equals(spelling)) {
-                    return m;
-                }
-            }
-            throw new IllegalArgumentException("no metric '" + spelling + "'; allowed: " + spellings());
-        }
     }
 
     /** How training subjects get the imputed target features. */

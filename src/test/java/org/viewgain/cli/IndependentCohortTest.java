@@ -160,6 +160,16 @@ class IndependentCohortTest {
         assertTrue(z < 1.645, "no combined evidence of a gain: z = " + z);
     }
 
+    /** {@code apply} of the run's bundle to the cohort file writes the run's external tables byte for byte. */
+    void assertApplyGivesTheRunsTables(Path run, Path cohort) throws IOException {
+        CliTest.Outcome o = CliTest.run("apply", run.resolve("bundle").toString(), cohort.toString(), "--out",
+                dir.resolve("applied").toString());
+        assertEquals(0, o.code(), o.err());
+        for (String t : List.of("external_predictions.csv", "external_metrics.csv", "external_comparisons.csv")) {
+            assertEquals(Files.readString(run.resolve(t)), Files.readString(dir.resolve("applied").resolve(t)), t);
+        }
+    }
+
     @Test
     void givenABundle_whenAppliedToTheSameCohort_thenPredictionsEqualTheRunsByteForByte() throws IOException {
         Path spec = cohorts(1.0, 90, 60);
@@ -174,12 +184,7 @@ class IndependentCohortTest {
                 .anyMatch(l -> l.startsWith("later-clinic,none,source,svm,calibration_slope,,")));
         assertTrue(Files.readString(run.resolve("report.html")).contains("Calibration on the independent cohort"));
         Path cohort = Files.writeString(dir.resolve("cohort.yaml"), COHORT);
-        CliTest.Outcome o = CliTest.run("apply", run.resolve("bundle").toString(), cohort.toString(), "--out",
-                dir.resolve("applied").toString());
-        assertEquals(0, o.code(), o.err());
-        for (String t : List.of("external_predictions.csv", "external_metrics.csv", "external_comparisons.csv")) {
-            assertEquals(Files.readString(run.resolve(t)), Files.readString(dir.resolve("applied").resolve(t)), t);
-        }
+        assertApplyGivesTheRunsTables(run, cohort);
     }
 
     @Test
@@ -298,12 +303,7 @@ class IndependentCohortTest {
         assertEquals("combat", new org.viewgain.frozen.FrozenIn(first,
                 Files.readAllBytes(run.resolve("bundle").resolve(first))).kind(), "the first step is ComBat");
         Path cohort = Files.writeString(dir.resolve("cohort.yaml"), COHORT);
-        CliTest.Outcome o = CliTest.run("apply", run.resolve("bundle").toString(), cohort.toString(), "--out",
-                dir.resolve("applied").toString());
-        assertEquals(0, o.code(), o.err());
-        for (String t : List.of("external_predictions.csv", "external_metrics.csv", "external_comparisons.csv")) {
-            assertEquals(Files.readString(run.resolve(t)), Files.readString(dir.resolve("applied").resolve(t)), t);
-        }
+        assertApplyGivesTheRunsTables(run, cohort);
 
         Path subjects = dir.resolve("ext/subjects.csv");
         List<String> lines = new java.util.ArrayList<>(Files.readAllLines(subjects));
@@ -311,7 +311,7 @@ class IndependentCohortTest {
         String moved = lines.get(2).split(",")[0];
         lines.set(2, lines.get(2).replace(",south", ",west"));
         Files.write(subjects, lines);
-        o = CliTest.run("apply", run.resolve("bundle").toString(), cohort.toString(), "--out",
+        CliTest.Outcome o = CliTest.run("apply", run.resolve("bundle").toString(), cohort.toString(), "--out",
                 dir.resolve("a1").toString());
         assertEquals(2, o.code(), o.err());
         assertTrue(o.err().strip().lines().count() == 1 && o.err().contains("subjects.csv line 3: subject '" + moved
@@ -358,16 +358,11 @@ class IndependentCohortTest {
         assertEquals("[\"age\"]", m.get("shape").get("covariates").toString());
         assertEquals(3, m.get("pipelines").get(0).get("steps").size(), "adjust, combat, standardize");
         Path cohort = Files.writeString(dir.resolve("cohort.yaml"), COHORT);
-        CliTest.Outcome o = CliTest.run("apply", run.resolve("bundle").toString(), cohort.toString(), "--out",
-                dir.resolve("applied").toString());
-        assertEquals(0, o.code(), o.err());
-        for (String t : List.of("external_predictions.csv", "external_metrics.csv", "external_comparisons.csv")) {
-            assertEquals(Files.readString(run.resolve(t)), Files.readString(dir.resolve("applied").resolve(t)), t);
-        }
+        assertApplyGivesTheRunsTables(run, cohort);
         Path subjects = dir.resolve("ext/subjects.csv");
         Files.write(subjects, Files.readAllLines(subjects).stream().map(l -> l.substring(0, l.lastIndexOf(',')))
                 .toList());
-        o = CliTest.run("apply", run.resolve("bundle").toString(), cohort.toString(), "--out",
+        CliTest.Outcome o = CliTest.run("apply", run.resolve("bundle").toString(), cohort.toString(), "--out",
                 dir.resolve("a1").toString());
         assertEquals(2, o.code(), o.err());
         assertTrue(o.err().strip().lines().count() == 1 && o.err().contains("subjects.csv")

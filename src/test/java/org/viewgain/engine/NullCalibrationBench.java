@@ -42,13 +42,19 @@ public final class NullCalibrationBench {
         // "tuned": logistic regression tuned over lambda in the inner folds, which then exercises the classifier's
         // inner folds and the nested imputations under permutation too
         boolean tuned = args.length > 5 && args[5].equals("tuned");
+        // "svm-forest" instead: the linear SVM tuned over C (its grid shares the Gram matrix of each inner fold's
+        // rows) and the project's forest, so that their code paths are exercised under permutation too
+        boolean svmForest = args.length > 6 && args[6].equals("svm-forest");
         String body = """
                 imputers: [ { name: ridge, method: ridge, fixed: { alpha: 10 } } ]
                 feature-sets: [source, source+imputed, target]
-                classifiers: [ { name: lr, method: logistic, %s } ]
+                classifiers: %s
                 validation: { outer: { folds: 5, repeats: 2 }, inner: { folds: 3 }, tune-by: balanced-accuracy }
                 significance: { permutations: %d, metric: balanced-accuracy, bootstrap: 0, compare: [] }
-                """.formatted(tuned ? "grid: { lambda: [0.1, 10] }" : "fixed: { lambda: 1.0 }", perms);
+                """.formatted(svmForest ? "[ { name: svm, method: svm-linear, grid: { C: [0.01, 1] } },"
+                + " { name: forest, method: random-forest, fixed: { trees: 50 } } ]"
+                : "[ { name: lr, method: logistic, " + (tuned ? "grid: { lambda: [0.1, 10] }" : "fixed: { lambda: 1.0 }")
+                + " } ]", perms);
         Path root = Files.createTempDirectory("viewgain-null");
         int workers = Runtime.getRuntime().availableProcessors();
         ExecutorService pool = Executors.newFixedThreadPool(workers);
@@ -84,7 +90,8 @@ public final class NullCalibrationBench {
         double secs = (System.nanoTime() - start) / 1e9;
         System.out.printf(Locale.ROOT, "%d null cohorts, %d permutations, sites %s, extra missing in patients %.2f,"
                 + " logistic %s, seeds %d..%d, %.0f s%n", cohorts, perms, sites == 0 ? "1 and 2" : sites,
-                missingByGroup, tuned ? "tuned over lambda 0.1, 10" : "lambda 1", first, first + cohorts - 1, secs);
+                missingByGroup, svmForest ? "replaced by svm-linear (C 0.01, 1) and random-forest (50 trees)"
+                        : tuned ? "tuned over lambda 0.1, 10" : "lambda 1", first, first + cohorts - 1, secs);
         BinomialDistribution b = new BinomialDistribution(cohorts, 0.05);
         int lo = b.inverseCumulativeProbability(0.005);
         int hi = b.inverseCumulativeProbability(0.995);
