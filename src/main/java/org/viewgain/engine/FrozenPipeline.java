@@ -69,10 +69,13 @@ public record FrozenPipeline(Pipeline pipeline, CohortShape shape, ViewImputer.F
         int[] who = population(d);
         // steps that read sites or covariates read the applied cohort's; IndependentData.load admitted only the
         // development sites and required the covariate columns
-        java.util.Map<String, String> sites = d.siteById();
-        java.util.Map<String, double[]> covariates = d.covariatesById(shape.covariates());
-        List<Transform.Fitted> applied = steps.stream()
-                .map(s -> s instanceof Transform.PerSubject b ? b.forCohort(sites, covariates) : s).toList();
+        List<Transform.Fitted> applied = steps;
+        if (steps.stream().anyMatch(s -> s instanceof Transform.PerSubject)) {
+            java.util.Map<String, String> sites = d.siteById();
+            java.util.Map<String, double[]> covariates = d.covariatesById(shape.covariates());
+            applied = steps.stream()
+                    .map(s -> s instanceof Transform.PerSubject b ? b.forCohort(sites, covariates) : s).toList();
+        }
         List<String> names = null;
         int positive = shape.groups().size() == 2 ? shape.groups().indexOf(shape.positive()) : -1;
         List<Prediction> out = new ArrayList<>(who.length);
