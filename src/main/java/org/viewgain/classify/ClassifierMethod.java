@@ -77,6 +77,20 @@ public interface ClassifierMethod {
     }
 
     /**
+     * The predictions of the models one {@link #fitGrid} call returned, for the same rows, in grid order; the same
+     * predictions as calling each model's {@link Model#predict}. A method whose prediction work depends only on the
+     * rows and the training block (the distances from each row to the support vectors) overrides it to do that work
+     * once for all the models.
+     */
+    default List<Predictions> predictGrid(List<Model> models, Rows x) {
+        List<Predictions> out = new java.util.ArrayList<>(models.size());
+        for (Model m : models) {
+            out.add(m.predict(x));
+        }
+        return out;
+    }
+
+    /**
      * Like {@link #fit}, for rows the caller will never read again (the final fit of a unit, on rows built for it).
      * A method that copies the rows into its own format may release each row as it copies it, by setting
      * {@code x.x()[i]} to null, so that the two copies do not live side by side for the whole fit. The default

@@ -2,6 +2,7 @@ package org.viewgain.classify;
 
 import java.util.ArrayList;
 import java.util.HashMap;
+import java.util.IdentityHashMap;
 import java.util.List;
 import java.util.Map;
 import org.viewgain.cohort.Rows;
@@ -15,6 +16,7 @@ import org.viewgain.stats.Distances;
  * with the RBF kernel {@code exp(-gamma |x - x'|^2)}, solved exactly (to {@code tolerance}) by {@link Smo} on a
  * kernel matrix computed once per training block and gamma. The matrix is label-free, so every C of a grid and every
  * one-against-rest machine reads the same one ({@link #fitGrid}); the solver is deterministic (no random order).
+ * The grid's models are predicted together ({@link #predictGrid}): distances to the shared support vectors once.
  *
  * <p>{@code gamma: scale} means {@code 1 / (p * var)} with {@code var} the variance of all training values
  * (population form), as scikit-learn's default. Two classes: one machine with class 1 as the positive side; more
@@ -24,19 +26,36 @@ import org.viewgain.stats.Distances;
  */
 public final class KernelSvm implements ClassifierMethod {
 
-    /** Computes the kernel matrix of training rows for a gamma (a seam for tests that count the computations). */
-    interface KernelSource {
-        double[][] matrix(double[][] x, double gamma);
+    /**
+     * The label-free distance work behind the kernels (a seam for tests that count the computations): the squared
+     * distances of a training block, and those from rows being predicted to support vectors.
+     */
+    interface KernelWork {
+        double[][] squaredDistances(double[][] x);
+
+        double[][] crossDistances(double[][] rows, double[][] vectors);
     }
 
-    private final KernelSource kernels;
+    private static final KernelWork RBF = new KernelWork() {
+        @Override
+        public double[][] squaredDistances(double[][] x) {
+            return RbfKernel.squaredDistances(x);
+        }
+
+        @Override
+        public double[][] crossDistances(double[][] rows, double[][] vectors) {
+            return RbfKernel.crossDistances(rows, vectors);
+        }
+    };
+
+    private final KernelWork work;
 
     public KernelSvm() {
-        this(RbfKernel::matrix);
+        this(RBF);
     }
 
-    KernelSvm(KernelSource kernels) {
-        this.kernels = kernels;
+    KernelSvm(KernelWork work) {
+        this.work = work;
     }
 
     @Override
@@ -76,15 +95,60 @@ public final class KernelSvm implements ClassifierMethod {
         return fitGrid(List.of(ctx), x, y, classes, List.of(params)).get(0);
     }
 
+    /**
+     * One matrix of squared distances for the block (label-free, gamma-free), one kernel matrix per gamma from it,
+     * and one SMO solution per grid point on its gamma's matrix.
+     */
     @Override
     public List<Model> fitGrid(List<FitContext> contexts, Rows x, int[] y, int classes, List<Params> grid) {
         TrainingLabels.check(method(), x, y, classes);
+        double[][] d = work.squaredDistances(x.x());
         Map<Double, double[][]> byGamma = new HashMap<>();
         List<Model> out = new ArrayList<>(grid.size());
         for (Params params : grid) {
             double gamma = RbfKernel.gamma(params.get("gamma"), x.x());
-            double[][] k = byGamma.computeIfAbsent(gamma, g -> kernels.matrix(x.x(), g));
+            double[][] k = byGamma.computeIfAbsent(gamma, g -> RbfKernel.fromDistances(d, g));
             out.add(fit(k, gamma, x.x(), y, classes, params));
+        }
+        return out;
+    }
+
+    /**
+     * The models of one {@link #fitGrid} share their training rows as support vectors: the distance from each row
+     * to each distinct support vector (by identity) is computed once for all of them, and every machine sums its own
+     * terms in its own order, so the values are those of {@link Machine#decision} bit for bit.
+     */
+    @Override
+    public List<Predictions> predictGrid(List<Model> models, Rows x) {
+        Map<double[], Integer> at = new IdentityHashMap<>();
+        List<double[]> distinct = new ArrayList<>();
+        for (Model m : models) {
+            if (!(m instanceof FrozenModels.Kernel k)) {
+                return ClassifierMethod.super.predictGrid(models, x);
+            }
+            for (Machine machine : k.machines()) {
+                for (double[] v : machine.vectors()) {
+                    at.computeIfAbsent(v, key -> {
+                        distinct.add(key);
+                        return distinct.size() - 1;
+                    });
+                }
+            }
+        }
+        double[][] d = work.crossDistances(x.x(), distinct.toArray(new double[0][]));
+        List<Predictions> out = new ArrayList<>(models.size());
+        for (Model m : models) {
+            FrozenModels.Kernel k = (FrozenModels.Kernel) m;
+            int[][] positions = new int[k.machines().size()][];
+            for (int c = 0; c < positions.length; c++) {
+                double[][] vectors = k.machines().get(c).vectors();
+                positions[c] = new int[vectors.length];
+                for (int s = 0; s < vectors.length; s++) {
+                    positions[c][s] = at.get(vectors[s]);
+                }
+            }
+            out.add(OneAgainstRest.predict(x.n(), k.classes(),
+                    (c, i) -> k.machines().get(c).decision(d[i], positions[c])));
         }
         return out;
     }
@@ -127,6 +191,15 @@ public final class KernelSvm implements ClassifierMethod {
             double f = -rho;
             for (int s = 0; s < vectors.length; s++) {
                 f += coef[s] * Math.exp(-gamma * Distances.squared(vectors[s], row));
+            }
+            return f;
+        }
+
+        /** {@link #decision(double[])} from a row's squared distances, support vector s at {@code d[at[s]]}. */
+        double decision(double[] d, int[] at) {
+            double f = -rho;
+            for (int s = 0; s < vectors.length; s++) {
+                f += coef[s] * Math.exp(-gamma * d[at[s]]);
             }
             return f;
         }

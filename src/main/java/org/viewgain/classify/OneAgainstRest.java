@@ -13,6 +13,11 @@ final class OneAgainstRest {
         double decision(int machine, double[] row);
     }
 
+    /** A fitted machine's decision value for the {@code i}-th row of a block being predicted. */
+    interface IndexedMachines {
+        double decision(int machine, int i);
+    }
+
     private OneAgainstRest() {
     }
 
@@ -33,17 +38,21 @@ final class OneAgainstRest {
 
     /** Labels and decision-value scores of the rows. */
     static Predictions predict(Rows rows, int classes, Machines machines) {
-        int[] labels = new int[rows.n()];
-        double[][] scores = new double[rows.n()][classes];
-        for (int i = 0; i < rows.n(); i++) {
-            double[] row = rows.x()[i];
+        return predict(rows.n(), classes, (m, i) -> machines.decision(m, rows.x()[i]));
+    }
+
+    /** Labels and decision-value scores of {@code n} rows known by their position. */
+    static Predictions predict(int n, int classes, IndexedMachines machines) {
+        int[] labels = new int[n];
+        double[][] scores = new double[n][classes];
+        for (int i = 0; i < n; i++) {
             if (classes == 2) {
-                double f = machines.decision(0, row);
+                double f = machines.decision(0, i);
                 scores[i][0] = -f;
                 scores[i][1] = f;
             } else {
                 for (int c = 0; c < classes; c++) {
-                    scores[i][c] = machines.decision(c, row);
+                    scores[i][c] = machines.decision(c, i);
                 }
             }
             labels[i] = TrainingLabels.argmax(scores[i]);

@@ -1,5 +1,7 @@
 package org.viewgain.classify;
 
+import org.viewgain.stats.Distances;
+
 /**
  * The RBF kernel matrix {@code K_ij = exp(-gamma |x_i - x_j|^2)} of a block of rows, with squared distances from
  * inner products ({@code |x_i|^2 + |x_j|^2 - 2 x_i.x_j}, floored at 0), as LIBSVM computes them. Symmetric; the
@@ -35,23 +37,58 @@ final class RbfKernel {
     }
 
     static double[][] matrix(double[][] x, double gamma) {
+        return fromDistances(squaredDistances(x), gamma);
+    }
+
+    /**
+     * The squared distances {@code |x_i - x_j|^2} of a block of rows from inner products, floored at 0 (label-free
+     * and gamma-free: one matrix serves every gamma of a grid). Symmetric with a zero diagonal.
+     */
+    static double[][] squaredDistances(double[][] x) {
         int n = x.length;
         double[] norms = new double[n];
         for (int i = 0; i < n; i++) {
             norms[i] = dot(x[i], x[i]);
         }
+        double[][] d = new double[n][n];
+        for (int i = 0; i < n; i++) {
+            double[] xi = x[i];
+            for (int j = 0; j < i; j++) {
+                double v = Math.max(0, norms[i] + norms[j] - 2 * dot(xi, x[j]));
+                d[i][j] = v;
+                d[j][i] = v;
+            }
+        }
+        return d;
+    }
+
+    /** The kernel matrix {@code exp(-gamma d_ij)} of squared distances, with a diagonal of exactly 1. */
+    static double[][] fromDistances(double[][] d, double gamma) {
+        int n = d.length;
         double[][] k = new double[n][n];
         for (int i = 0; i < n; i++) {
             k[i][i] = 1.0;
-            double[] xi = x[i];
             for (int j = 0; j < i; j++) {
-                double d = Math.max(0, norms[i] + norms[j] - 2 * dot(xi, x[j]));
-                double v = Math.exp(-gamma * d);
+                double v = Math.exp(-gamma * d[i][j]);
                 k[i][j] = v;
                 k[j][i] = v;
             }
         }
         return k;
+    }
+
+    /**
+     * The squared distances from each row to each vector, {@code d[i][s] = |vectors[s] - rows[i]|^2}, in the
+     * arithmetic of {@link Distances#squared} (as a machine's decision value computes them one by one).
+     */
+    static double[][] crossDistances(double[][] rows, double[][] vectors) {
+        double[][] d = new double[rows.length][vectors.length];
+        for (int i = 0; i < rows.length; i++) {
+            for (int s = 0; s < vectors.length; s++) {
+                d[i][s] = Distances.squared(vectors[s], rows[i]);
+            }
+        }
+        return d;
     }
 
     /** {@code a.b} in four running sums (summed in a fixed order, so the result is deterministic). */

@@ -234,15 +234,16 @@ final class ClassifierStage {
                             "classify", base.permutation(), base.repeat(), base.outerFold(), j, p.label()))));
                     grid.add(points.get(g).params());
                 }
-                List<ClassifierMethod.Model> trained =
-                        new ArrayList<>(cl.method().fitGrid(contexts, fitIn, yFit, classes, grid));
-                for (int g = from; g < to; g++) {
-                    ClassifierMethod.Model model = trained.get(g - from);
-                    trained.set(g - from, null); // one model at a time after this
+                List<ClassifierMethod.Model> trained = cl.method().fitGrid(contexts, fitIn, yFit, classes, grid);
+                for (ClassifierMethod.Model model : trained) {
                     if (!model.converged()) {
                         unconverged[0]++;
                     }
-                    Predictions pr = model.predict(valIn);
+                }
+                // predicted together, so that a method's label-free prediction work is also done once
+                List<Predictions> predicted = cl.method().predictGrid(trained, valIn);
+                for (int g = from; g < to; g++) {
+                    Predictions pr = predicted.get(g - from);
                     for (int t = 0; t < vp.length; t++) {
                         pred[g][vp[t]] = pr.labels()[t];
                         scores[g][vp[t]] = pr.hasScores() ? pr.scores()[t] : null;

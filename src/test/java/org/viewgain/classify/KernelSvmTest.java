@@ -1,5 +1,6 @@
 package org.viewgain.classify;
 
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -176,29 +177,79 @@ class KernelSvmTest {
         assertEquals(0.5, bounded.alpha()[1], 0.0);
     }
 
+    /** Counts the label-free distance work of a {@link KernelSvm}. */
+    private static final class CountingWork implements KernelSvm.KernelWork {
+        int blocks;
+        int crosses;
+        int vectors;
+
+        @Override
+        public double[][] squaredDistances(double[][] x) {
+            blocks++;
+            return RbfKernel.squaredDistances(x);
+        }
+
+        @Override
+        public double[][] crossDistances(double[][] rows, double[][] v) {
+            crosses++;
+            vectors += v.length;
+            return RbfKernel.crossDistances(rows, v);
+        }
+    }
+
     @Test
-    void givenAGrid_whenFittedTogether_thenOneKernelPerGammaAndTheSameModelsAsSeparateFits() {
-        int[] computed = {0};
-        KernelSvm counting = new KernelSvm((x, g) -> {
-            computed[0]++;
-            return RbfKernel.matrix(x, g);
-        });
+    void givenAGrid_whenFittedTogether_thenOneDistanceMatrixAndTheSameModelsAsSeparateFits() {
+        CountingWork counting = new CountingWork();
+        KernelSvm together = new KernelSvm(counting);
         Rows rows = CANCER.rows();
         List<Params> grid = new ArrayList<>();
         List<FitContext> contexts = new ArrayList<>();
         for (Object gamma : List.of("scale", 0.01)) {
             for (double c : new double[] {0.1, 1, 10}) {
-                grid.add(counting.resolve(Map.of("C", c, "gamma", gamma)));
+                grid.add(together.resolve(Map.of("C", c, "gamma", gamma)));
                 contexts.add(new FitContext(0, 0, 0, FitContext.WHOLE, FitContext.Role.TUNE, grid.size()));
             }
         }
-        List<ClassifierMethod.Model> together = counting.fitGrid(contexts, rows, CANCER.y(), 2, grid);
-        assertEquals(2, computed[0], "kernel matrices for 6 grid points over 2 gammas");
+        List<ClassifierMethod.Model> models = together.fitGrid(contexts, rows, CANCER.y(), 2, grid);
+        assertEquals(1, counting.blocks, "one matrix of squared distances for 6 grid points over 2 gammas");
         ClassifierMethod plain = new KernelSvm();
         for (int g = 0; g < grid.size(); g++) {
-            Predictions a = together.get(g).predict(rows);
+            Predictions a = models.get(g).predict(rows);
             Predictions b = plain.fit(contexts.get(g), rows, CANCER.y(), 2, grid.get(g)).predict(rows);
             assertTrue(Arrays.deepEquals(a.scores(), b.scores()), "grid point " + g);
+        }
+    }
+
+    @Test
+    void givenAGridsModels_whenPredictedTogether_thenDistancesOnceAndTheSameScoresBitForBit() {
+        // two-class (Breast Cancer Wisconsin) and three-class (iris, one machine per class) grids
+        for (ReferenceTable data : List.of(CANCER, IRIS)) {
+            CountingWork counting = new CountingWork();
+            KernelSvm svm = new KernelSvm(counting);
+            int classes = data.classes();
+            int n = data.rows().n();
+            int[] fit = java.util.stream.IntStream.range(0, n).filter(i -> i % 3 != 0).toArray();
+            int[] held = java.util.stream.IntStream.range(0, n).filter(i -> i % 3 == 0).toArray();
+            Rows train = data.rows().select(fit);
+            Rows test = data.rows().select(held);
+            int[] y = Arrays.stream(fit).map(i -> data.y()[i]).toArray();
+            List<Params> grid = new ArrayList<>();
+            List<FitContext> contexts = new ArrayList<>();
+            for (Object gamma : List.of("scale", 0.05)) {
+                for (double c : new double[] {0.1, 10}) {
+                    grid.add(svm.resolve(Map.of("C", c, "gamma", gamma)));
+                    contexts.add(new FitContext(0, 0, 0, FitContext.WHOLE, FitContext.Role.TUNE, grid.size()));
+                }
+            }
+            List<ClassifierMethod.Model> models = svm.fitGrid(contexts, train, y, classes, grid);
+            List<Predictions> together = svm.predictGrid(models, test);
+            assertEquals(1, counting.crosses, "one distance computation for the grid's predictions");
+            assertTrue(counting.vectors <= train.n(), "distinct support vectors " + counting.vectors);
+            for (int g = 0; g < grid.size(); g++) {
+                Predictions alone = models.get(g).predict(test);
+                assertTrue(Arrays.deepEquals(alone.scores(), together.get(g).scores()), "grid point " + g);
+                assertArrayEquals(alone.labels(), together.get(g).labels(), "grid point " + g);
+            }
         }
     }
 
