@@ -126,21 +126,33 @@ public final class BinnedForest implements ClassifierMethod {
      * edges below it.
      */
     record Bins(byte[][] code, double[][] edges, int n) {
+        /** Columns copied out of the rows together. */
+        private static final int COLUMN_BLOCK = 64;
+
         static Bins of(double[][] x) {
             int n = x.length;
             int p = n == 0 ? 0 : x[0].length;
             byte[][] code = new byte[p][n];
             double[][] edges = new double[p][];
-            double[] column = new double[n];
             double[] sorted = new double[n];
             int[] order = new int[n];
-            int[] scratch = new int[n];
+            long[] keys = new long[n];
+            // columns are copied out of the rows a block at a time, so that each row's stretch of the block is read
+            // from memory once rather than once per column (a cache miss per value on wide rows)
+            double[][] block = new double[Math.min(p, COLUMN_BLOCK)][n];
             for (int j = 0; j < p; j++) {
-                for (int i = 0; i < n; i++) {
-                    column[i] = x[i][j];
-                    order[i] = i;
+                int inBlock = j % COLUMN_BLOCK;
+                if (inBlock == 0) {
+                    int width = Math.min(COLUMN_BLOCK, p - j);
+                    for (int i = 0; i < n; i++) {
+                        double[] row = x[i];
+                        for (int b = 0; b < width; b++) {
+                            block[b][i] = row[j + b];
+                        }
+                    }
                 }
-                sortByValue(column, order, scratch, 0, n);
+                double[] column = block[inBlock];
+                sortByValue(column, order, keys);
                 for (int k = 0; k < n; k++) {
                     sorted[k] = column[order[k]];
                 }
@@ -162,38 +174,35 @@ public final class BinnedForest implements ClassifierMethod {
         }
 
         /**
-         * Sorts {@code order[from, to)} by {@code value[order[.]]} ascending (merge sort, insertion sort for short
-         * runs). Equal values may come in any order: the edges and bins depend on the values only.
+         * Puts into {@code order[0, n)} the positions of {@code value[0, n)} sorted by value ascending. Each value is
+         * mapped to a long that orders as the value does, its lowest bits replaced by the position, and the longs
+         * are sorted as primitives (no comparison through an index); values that differ only in those lowest bits
+         * may then be out of order, so one insertion pass by the values themselves puts them right (it moves nothing
+         * otherwise). Equal values may come in any order: the edges and bins depend on the values only.
          */
-        static void sortByValue(double[] value, int[] order, int[] scratch, int from, int to) {
-            if (to - from <= 24) {
-                for (int i = from + 1; i < to; i++) {
-                    int o = order[i];
-                    double v = value[o];
-                    int k = i - 1;
-                    while (k >= from && value[order[k]] > v) {
-                        order[k + 1] = order[k];
-                        k--;
-                    }
-                    order[k + 1] = o;
-                }
-                return;
+        static void sortByValue(double[] value, int[] order, long[] keys) {
+            int n = order.length;
+            int shift = 32 - Integer.numberOfLeadingZeros(Math.max(1, n - 1));
+            long low = (1L << shift) - 1;
+            for (int i = 0; i < n; i++) {
+                long bits = Double.doubleToRawLongBits(value[i]);
+                // negative values: flip the magnitude bits so that signed order is numeric order
+                long ordered = bits ^ ((bits >> 63) & Long.MAX_VALUE);
+                keys[i] = (ordered & ~low) | i;
             }
-            int mid = (from + to) >>> 1;
-            sortByValue(value, order, scratch, from, mid);
-            sortByValue(value, order, scratch, mid, to);
-            if (value[order[mid - 1]] <= value[order[mid]]) {
-                return; // already in order
+            Arrays.sort(keys, 0, n);
+            for (int k = 0; k < n; k++) {
+                order[k] = (int) (keys[k] & low);
             }
-            System.arraycopy(order, from, scratch, from, to - from);
-            int a = from;
-            int b = mid;
-            for (int k = from; k < to; k++) {
-                if (b >= to || (a < mid && value[scratch[a]] <= value[scratch[b]])) {
-                    order[k] = scratch[a++];
-                } else {
-                    order[k] = scratch[b++];
+            for (int k = 1; k < n; k++) {
+                int o = order[k];
+                double v = value[o];
+                int at = k - 1;
+                while (at >= 0 && value[order[at]] > v) {
+                    order[at + 1] = order[at];
+                    at--;
                 }
+                order[at + 1] = o;
             }
         }
 

@@ -157,28 +157,32 @@ class BinnedForestTest {
      * Binning sorts each column's row indices once and assigns bins in one walk; the result equals the
      * straightforward way (sort a copy with {@code Arrays.sort}, then {@code Bins.bin} by binary search for each
      * value): the same edges and the same code for every row, with ties, signed zeros, few and many (over 255)
-     * distinct values (invented columns, seeded).
+     * distinct values, values that differ only in their last bits (the sort's packed keys cannot tell those apart,
+     * its insertion pass must), and more columns than are copied out of the rows together (invented columns, seeded).
      */
     @Test
     void givenColumnsOfManyKinds_whenBinned_thenTheSameEdgesAndCodesAsSortAndSearch() {
         java.util.SplittableRandom rnd = new java.util.SplittableRandom(17);
         int checked = 0;
         for (int n : new int[] {1, 2, 7, 24, 25, 64, 300, 1000}) {
-            for (int kind = 0; kind < 5; kind++) {
-                double[][] x = new double[n][3];
+            for (int kind = 0; kind < 7; kind++) {
+                int p = kind == 6 ? 67 : 3;
+                double[][] x = new double[n][p];
                 for (int i = 0; i < n; i++) {
-                    for (int j = 0; j < 3; j++) {
+                    for (int j = 0; j < p; j++) {
                         x[i][j] = switch (kind) {
                             case 0 -> rnd.nextGaussian();
                             case 1 -> rnd.nextInt(4);
                             case 2 -> rnd.nextBoolean() ? 0.0 : -0.0;
                             case 3 -> Math.round(rnd.nextGaussian() * 50) / 10.0;
-                            default -> rnd.nextInt(3) == 0 ? 1.5 : rnd.nextGaussian() * 1e-3;
+                            case 4 -> rnd.nextInt(3) == 0 ? 1.5 : rnd.nextGaussian() * 1e-3;
+                            case 5 -> (rnd.nextBoolean() ? 1 : -1) * (1.0 + rnd.nextInt(2000) * Math.ulp(1.0));
+                            default -> rnd.nextGaussian() + j;
                         };
                     }
                 }
                 BinnedForest.Bins bins = BinnedForest.Bins.of(x);
-                for (int j = 0; j < 3; j++) {
+                for (int j = 0; j < p; j++) {
                     double[] sorted = new double[n];
                     for (int i = 0; i < n; i++) {
                         sorted[i] = x[i][j];

@@ -18,8 +18,8 @@ import org.viewgain.spec.Params;
  * of the features. Measures the calling thread's CPU time (ThreadMXBean), which a shared machine's load disturbs far
  * less than wall time; prints the median over rounds of each method's time per fit, after warm-up rounds.
  *
- * <p>Usage: {@code bench/test-main.sh 2g org.viewgain.classify.FitSpeedBench [ROWS FEATURES ROUNDS]}. To compare two
- * builds, put the older jar before {@code target/classes} on the class path (bench/fit-speed.sh does).
+ * <p>Usage: {@code bench/test-main.sh 2g org.viewgain.classify.FitSpeedBench [ROWS FEATURES ROUNDS [forest|svm]]}.
+ * To compare two builds, put the older jar before {@code target/classes} on the class path (bench/fit-speed.sh does).
  */
 public final class FitSpeedBench {
     private FitSpeedBench() {
@@ -29,6 +29,7 @@ public final class FitSpeedBench {
         int n = args.length > 0 ? Integer.parseInt(args[0]) : 128;
         int p = args.length > 1 ? Integer.parseInt(args[1]) : 1190;
         int rounds = args.length > 2 ? Integer.parseInt(args[2]) : 7;
+        String only = args.length > 3 ? args[3] : "";
         SplittableRandom rng = new SplittableRandom(12);
         double[][] x = new double[n][p];
         int[] y = new int[n];
@@ -45,12 +46,16 @@ public final class FitSpeedBench {
             }
         }
         Rows rows = new Rows(ids, x, names);
-        time("random-forest 200 trees sqrt", "random-forest",
-                Map.of("trees", 200, "features-per-split", "sqrt"), rows, y, rounds);
-        time("random-forest 200 trees 0.1", "random-forest",
-                Map.of("trees", 200, "features-per-split", 0.1), rows, y, rounds);
-        time("svm-rbf C=1 gamma=scale", "svm-rbf", Map.of("C", 1.0), rows, y, rounds);
-        time("svm-linear C=0.1", "svm-linear", Map.of("C", 0.1), rows, y, rounds);
+        if ("forest".contains(only)) {
+            time("random-forest 200 trees sqrt", "random-forest",
+                    Map.of("trees", 200, "features-per-split", "sqrt"), rows, y, rounds);
+            time("random-forest 200 trees 0.1", "random-forest",
+                    Map.of("trees", 200, "features-per-split", 0.1), rows, y, rounds);
+        }
+        if ("svm".contains(only)) {
+            time("svm-rbf C=1 gamma=scale", "svm-rbf", Map.of("C", 1.0), rows, y, rounds);
+            time("svm-linear C=0.1", "svm-linear", Map.of("C", 0.1), rows, y, rounds);
+        }
     }
 
     private static void time(String label, String method, Map<String, Object> raw, Rows rows, int[] y, int rounds) {
