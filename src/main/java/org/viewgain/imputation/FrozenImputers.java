@@ -5,6 +5,7 @@ import org.viewgain.folds.FitContext;
 import org.viewgain.frozen.Freezable;
 import org.viewgain.frozen.FrozenIn;
 import org.viewgain.frozen.FrozenOut;
+import org.viewgain.stats.SmileMatrices;
 
 /**
  * The fitted imputers that can be frozen into a bundle ({@code mean}, {@code nearest-neighbours}, {@code ridge},

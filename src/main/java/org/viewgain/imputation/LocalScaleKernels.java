@@ -1,6 +1,7 @@
 package org.viewgain.imputation;
 
 import java.util.Arrays;
+import org.viewgain.stats.SmileMatrices;
 
 /**
  * The Gaussian kernels with local scales of SIMLR (Wang et al. 2017, Nature Methods 14:414-416): for each k in

@@ -1,5 +1,7 @@
 package org.viewgain.imputation;
 
+import org.viewgain.stats.SmileMatrices;
+
 /**
  * Multiple-kernel similarity learning after SIMLR (Wang, Zhu, Pierson, Ramazzotti &amp; Batzoglou 2017, Nature
  * Methods 14:414-416). It minimises

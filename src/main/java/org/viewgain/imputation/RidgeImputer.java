@@ -5,6 +5,7 @@ import org.viewgain.cohort.Rows;
 import org.viewgain.folds.FitContext;
 import org.viewgain.spec.ParamDef;
 import org.viewgain.spec.Params;
+import org.viewgain.stats.SmileMatrices;
 
 /**
  * Multi-output ridge regression (Hoerl &amp; Kennard 1970) with an unpenalised intercept: source and target are

@@ -2,6 +2,7 @@ package org.viewgain.imputation;
 
 import java.util.ArrayList;
 import java.util.List;
+import org.viewgain.stats.SmileMatrices;
 
 /**
  * SIMPLS (de Jong 1993) computed in subject space so that wide sources and wide targets cost no p x q matrix.

@@ -47,7 +47,7 @@ class LayeringTest {
     @Test
     void givenMainClasses_whenChecked_thenSmileAndWekaOnlyInAdapters() {
         noClasses().that().resideOutsideOfPackage("org.viewgain.classify..")
-                .and().doNotHaveFullyQualifiedName("org.viewgain.imputation.SmileMatrices")
+                .and().doNotHaveFullyQualifiedName("org.viewgain.stats.SmileMatrices")
                 .should().dependOnClassesThat().resideInAnyPackage("smile..", "weka..").check(MAIN);
     }
 

@@ -65,6 +65,9 @@ class PermanovaTest {
         double fisherF = new OneWayAnova().anovaFValue(samples);
         double f = Permanova.pseudoF(Distances.euclidean(features), groups);
         assertEquals(fisherF, f, 1e-9 * fisherF);
+        // the same through the rows' Gram matrix (native BLAS), as the separation test computes it
+        double viaGram = Permanova.pseudoF(Distances.euclideanFromGram(SmileMatrices.rowGram(features)), groups);
+        assertEquals(fisherF, viaGram, 1e-9 * fisherF);
         Permanova.Result r = Permanova.monteCarlo(Distances.euclidean(features), groups, 99, 1);
         // species differ strongly (F about 119): no relabelling reaches it, p = 1/(99 + 1)
         assertEquals(0.01, r.p(), 1e-15);
@@ -102,6 +105,38 @@ class PermanovaTest {
         // C(60, 30) arrangements, far beyond the enumeration limit
         assertThrows(IllegalArgumentException.class, () -> Permanova.exact(new double[60][60], halves));
         assertTrue(Double.isNaN(Permanova.pseudoF(new double[60][60], halves)));
+    }
+
+    @Test
+    void givenWideRows_whenDistancesFromTheGramMatrix_thenTheTextbookSumToRounding() {
+        // 40 rows x 5,001 columns (two full blocks of 2,048 columns and a ragged rest), random values, one row
+        // repeated (distance 0 up to the rounding of the Gram matrix)
+        java.util.SplittableRandom rnd = new java.util.SplittableRandom(9);
+        double[][] x = new double[40][5001];
+        for (double[] r : x) {
+            for (int k = 0; k < r.length; k++) {
+                r[k] = rnd.nextGaussian();
+            }
+        }
+        x[39] = x[3].clone();
+        double[][] g = SmileMatrices.rowGram(x);
+        double[][] d = Distances.euclideanFromGram(g);
+        for (int i = 0; i < x.length; i++) {
+            assertEquals(0.0, d[i][i], 0.0);
+            for (int j = 0; j < x.length; j++) {
+                double s = 0;
+                double dot = 0;
+                for (int k = 0; k < x[i].length; k++) {
+                    s += (x[i][k] - x[j][k]) * (x[i][k] - x[j][k]);
+                    dot += x[i][k] * x[j][k];
+                }
+                assertEquals(dot, g[i][j], 1e-10 * x[i].length, "Gram " + i + "," + j);
+                assertEquals(g[i][j], g[j][i], 0.0, "symmetric " + i + "," + j);
+                // squared distances to rounding relative to the squared lengths (about 5,000 each)
+                assertEquals(s, d[i][j] * d[i][j], 1e-10 * x[i].length, i + "," + j);
+            }
+        }
+        assertEquals(0.0, d[3][39], 1e-5);
     }
 
     @Test

@@ -1,17 +1,20 @@
-package org.viewgain.imputation;
+package org.viewgain.stats;
 
+import smile.math.blas.BLAS;
 import smile.math.blas.EVDJob;
 import smile.math.blas.EigenRange;
 import smile.math.blas.LAPACK;
 import smile.math.blas.Layout;
+import smile.math.blas.Transpose;
 import smile.math.blas.UPLO;
 import smile.math.matrix.Matrix;
 
 /**
- * The one place in this package that calls Smile's dense linear algebra (native BLAS/LAPACK through Smile 3.1.1),
- * so the imputers work on plain {@code double[][]} row-major arrays.
+ * The one place outside the classifier adapters that calls Smile's dense linear algebra (native BLAS/LAPACK through
+ * Smile 3.1.1), so the imputers, the linear SVM and the separation test work on plain {@code double[][]} row-major
+ * arrays.
  */
-final class SmileMatrices {
+public final class SmileMatrices {
     static {
         // viewgain already runs its work units on --threads threads; OpenBLAS's own threads on top of them waited
         // for work by spinning in the kernel, which on 2 cores cost as much sys time as a third of the user time
@@ -23,23 +26,55 @@ final class SmileMatrices {
     }
 
     /** {@code a a'} (rows of a against rows of a). */
-    static double[][] gram(double[][] a) {
+    public static double[][] gram(double[][] a) {
         return Matrix.of(a).aat().toArray();
     }
 
+    /** Columns of the rows copied together into one block for {@link #rowGram}. */
+    private static final int GRAM_BLOCK = 2048;
+
+    /**
+     * The Gram matrix {@code x x'} (every pair of rows' inner product) by native BLAS, a block of columns at a time
+     * so that no copy of all the rows is made (wide views hold hundreds of megabytes); the lower triangle is mirrored,
+     * so the result is exactly symmetric. Sums in BLAS's order, not a scalar loop's: the last digits differ from a
+     * plain dot product, and are the same on every run on one machine (BLAS on one thread).
+     */
+    public static double[][] rowGram(double[][] x) {
+        int n = x.length;
+        int p = n == 0 ? 0 : x[0].length;
+        double[] g = new double[n * n];
+        double[] block = new double[n * Math.min(p, GRAM_BLOCK)];
+        for (int c0 = 0; c0 < p; c0 += GRAM_BLOCK) {
+            int w = Math.min(GRAM_BLOCK, p - c0);
+            for (int i = 0; i < n; i++) {
+                System.arraycopy(x[i], c0, block, i * w, w);
+            }
+            BLAS.engine.gemm(Layout.ROW_MAJOR, Transpose.NO_TRANSPOSE, Transpose.TRANSPOSE, n, n, w, 1.0, block, w,
+                    block, w, 1.0, g, n);
+        }
+        double[][] out = new double[n][n];
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j <= i; j++) {
+                out[i][j] = g[i * n + j];
+                out[j][i] = g[i * n + j];
+            }
+        }
+        return out;
+    }
+
     /** {@code a b'} (rows of a against rows of b); both need the same width. */
-    static double[][] cross(double[][] a, double[][] b) {
+    public static double[][] cross(double[][] a, double[][] b) {
         Matrix ma = Matrix.of(a);
         return ma.mt(Matrix.of(b)).toArray();
     }
 
     /** {@code a' b}. */
-    static double[][] transposeTimes(double[][] a, double[][] b) {
+    public static double[][] transposeTimes(double[][] a, double[][] b) {
         return Matrix.of(a).tm(Matrix.of(b)).toArray();
     }
 
     /** {@code a b}. */
-    static double[][] times(double[][] a, double[][] b) {
+    public static double[][] times(double[][] a, double[][] b) {
         return Matrix.of(a).mm(Matrix.of(b)).toArray();
     }
 
@@ -48,7 +83,7 @@ final class SmileMatrices {
      *
      * @throws ArithmeticException when {@code a} is not positive definite
      */
-    static double[][] solveSpd(double[][] a, double[][] b) {
+    public static double[][] solveSpd(double[][] a, double[][] b) {
         Matrix ma = Matrix.of(a);
         ma.uplo(UPLO.LOWER);
         Matrix.Cholesky chol = ma.cholesky();
@@ -62,7 +97,7 @@ final class SmileMatrices {
      *
      * @return values[i] and the matching unit eigenvector in column i of vectors
      */
-    static SymmetricEigen symmetricEigen(double[][] a) {
+    public static SymmetricEigen symmetricEigen(double[][] a) {
         Matrix ma = Matrix.of(a);
         ma.uplo(UPLO.LOWER);
         Matrix.EVD evd = ma.eigen(false, true, true).sort();
@@ -76,7 +111,7 @@ final class SmileMatrices {
      * @return n x r, column c the unit eigenvector of the (c+1)-th largest eigenvalue
      * @throws ArithmeticException when LAPACK reports a failure
      */
-    static double[][] topEigenvectors(double[][] a, int r) {
+    public static double[][] topEigenvectors(double[][] a, int r) {
         int n = a.length;
         double[] packed = new double[n * n];
         for (int i = 0; i < n; i++) {
@@ -102,6 +137,6 @@ final class SmileMatrices {
     }
 
     /** Eigenvalues (descending) and eigenvectors (columns) of a symmetric matrix. */
-    record SymmetricEigen(double[] values, double[][] vectors) {
+    public record SymmetricEigen(double[] values, double[][] vectors) {
     }
 }
