@@ -14,7 +14,8 @@ import org.viewgain.spec.Params;
  * {@code random-forest}: Breiman's random forest (Breiman 2001, Machine Learning 45:5-32), written for the many
  * refits of nested cross-validation and permutation tests on wide edge-level views. Each tree grows on a bootstrap
  * sample; at every node {@code features-per-split} features are drawn afresh and the split with the largest Gini
- * impurity decrease among them is taken; trees grow until a node is pure, reaches {@code max-depth}, or cannot be
+ * impurity decrease among them is taken (drawing stops early at a split into two pure children, which none of the
+ * remaining features could beat); trees grow until a node is pure, reaches {@code max-depth}, or cannot be
  * split into two children of at least {@code min-node-size} rows (bootstrap copies counted); a tree's scores are its
  * leaf's class fractions, and the forest averages them over trees.
  *

@@ -144,7 +144,10 @@ final class Grower {
 
     /**
      * Looks for the best split of the rows {@code [lo, hi)} among {@code mtry} features drawn without replacement
-     * (two classes: {@link #splitTwoClasses}; more: a class histogram per feature, below);
+     * (two classes: {@link #splitTwoClasses}; more: a class histogram per feature, below). A split into two pure
+     * children decreases impurity by {@code w - parentScore} (each child's {@code sum(c^2)/w} is its row count, exactly
+     * in floating point), which no split exceeds and the first one found wins ties; so the drawing stops there, and
+     * the split is the one all {@code mtry} draws would give (only the generator's later draws differ);
      * sets {@link #bestFeature}, {@link #bestBin} and {@link #bestDecrease} and returns 0, or -1 when no drawn
      * feature splits the node into two children of at least {@code minLeaf} rows with a positive decrease.
      */
@@ -156,7 +159,8 @@ final class Grower {
         // a split must decrease impurity by more than rounding error (an uninformative split computes to about 0)
         double best = 1e-12 * w;
         bestFeature = -1;
-        for (int k = 0; k < mtry; k++) {
+        double perfect = (double) w - parentScore;
+        for (int k = 0; k < mtry && best < perfect; k++) {
             int r = k + rng.nextInt(p - k);
             int f = features[r];
             features[r] = features[k];
@@ -241,7 +245,8 @@ final class Grower {
             nodeCounts[t] = count[row] | (y[row] == 1 ? (long) count[row] << 32 : 0L);
         }
         long p0 = parent[0];
-        for (int k = 0; k < mtry; k++) {
+        double perfect = (double) w - parentScore;
+        for (int k = 0; k < mtry && best < perfect; k++) {
             int r = k + rng.nextInt(p - k);
             int f = features[r];
             features[r] = features[k];

@@ -73,6 +73,93 @@ class BinnedForestTest {
         assertEquals(3.0, importance[1], 1e-12);
     }
 
+    /**
+     * With every feature tried at the root (no bootstrap), the root's decrease is the largest over all features and
+     * midpoints, found by brute force (the textbook sum over every threshold): also when the search stops early at a
+     * split into two pure children, which several planted features offer in some tables. Random small tables, two
+     * and three classes (invented, seeded).
+     */
+    @Test
+    void givenRandomTables_whenTheRootIsSplitWithAllFeatures_thenItsDecreaseIsTheBruteForceMaximum() {
+        SplittableRandom rnd = new SplittableRandom(23);
+        int perfectTables = 0;
+        for (int table = 0; table < 400; table++) {
+            int classes = table % 2 == 0 ? 2 : 3;
+            int n = 4 + rnd.nextInt(20);
+            int p = 1 + rnd.nextInt(8);
+            int[] y = new int[n];
+            double[][] x = new double[n][p];
+            for (int i = 0; i < n; i++) {
+                y[i] = rnd.nextInt(classes);
+                for (int j = 0; j < p; j++) {
+                    x[i][j] = rnd.nextInt(6);
+                }
+            }
+            if (table % 3 == 0) { // plant separating features: class 0 low, the rest high
+                for (int j = 0; j < p; j += 2) {
+                    for (int i = 0; i < n; i++) {
+                        x[i][j] = y[i] == 0 ? rnd.nextInt(3) : 10 + rnd.nextInt(3);
+                    }
+                }
+            }
+            double best = bruteForceBestDecrease(x, y, classes);
+            double[] importance = new double[p];
+            Grower g = new Grower(BinnedForest.Bins.of(x), y, classes, p, 1, 1);
+            g.grow(new SplittableRandom(table), importance, false);
+            double found = Arrays.stream(importance).sum();
+            assertEquals(best, found, 1e-9, "table " + table);
+            int[] counts = new int[classes];
+            for (int c : y) {
+                counts[c]++;
+            }
+            double parent = 0;
+            for (int c : counts) {
+                parent += (double) c * c / n;
+            }
+            perfectTables += classes == 2 && best > 0 && Math.abs(best - (n - parent)) < 1e-9 ? 1 : 0;
+        }
+        assertTrue(perfectTables > 40, "two-class tables with a perfect split: " + perfectTables);
+    }
+
+    /** The largest {@code sum(l^2)/wl + sum(r^2)/wr - sum(c^2)/w} over features and midpoints (0 when none). */
+    private static double bruteForceBestDecrease(double[][] x, int[] y, int classes) {
+        int n = x.length;
+        double parent = 0;
+        int[] all = new int[classes];
+        for (int c : y) {
+            all[c]++;
+        }
+        for (int c : all) {
+            parent += (double) c * c / n;
+        }
+        double best = 0;
+        for (int j = 0; j < x[0].length; j++) {
+            for (int i = 0; i < n; i++) {
+                double t = x[i][j];
+                int[] left = new int[classes];
+                int wl = 0;
+                for (int k = 0; k < n; k++) {
+                    if (x[k][j] <= t) {
+                        left[y[k]]++;
+                        wl++;
+                    }
+                }
+                int wr = n - wl;
+                if (wl == 0 || wr == 0) {
+                    continue;
+                }
+                double sl = 0;
+                double sr = 0;
+                for (int c = 0; c < classes; c++) {
+                    sl += (double) left[c] * left[c];
+                    sr += (double) (all[c] - left[c]) * (all[c] - left[c]);
+                }
+                best = Math.max(best, sl / wl + sr / wr - parent);
+            }
+        }
+        return best;
+    }
+
     @Test
     void givenManyDistinctValues_whenBinned_thenAtMost255BinsOrderedAndEqualValuesShareABin() {
         double[] sorted = new double[2_000];
