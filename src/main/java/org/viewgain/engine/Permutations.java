@@ -61,6 +61,30 @@ final class Permutations {
         this.ready = ready;
     }
 
+    /** Bytes of imputations one batch may hold for its permutations together (one permutation's always fit). */
+    static final long IMPUTATION_BUDGET = 256L << 20;
+
+    /**
+     * About how many bytes one permutation's imputations take ({@link ImputedFold}: a float per subject and target
+     * feature, and a double per target feature, in every outer-fold slot, for each imputer a pipeline uses).
+     */
+    long imputationBytes() {
+        long imputers = ex.pipelines().stream().filter(p -> p.featureSet().needsImputer()).map(Pipeline::imputer)
+                .distinct().count();
+        long perSlot = (long) ex.data().targetNames().size() * (4L * ex.data().n() + 8L);
+        return Math.max(1, imputers * state.slots() * perSlot);
+    }
+
+    /**
+     * Permutations per active pipeline in one batch: {@code batch} jobs spread over the active pipelines (at least
+     * one each), fewer when their imputations ({@code bytesPerPermutation} each) would pass the budget.
+     */
+    static int perPipeline(int batch, int active, long bytesPerPermutation) {
+        long byMemory = Math.max(1, IMPUTATION_BUDGET / Math.max(1, bytesPerPermutation));
+        int byJobs = Math.max(1, (int) Math.ceil(batch / (double) Math.max(1, active)));
+        return (int) Math.min(byJobs, byMemory);
+    }
+
     /** Runs the test for every pipeline; {@code observed} is each pipeline's metric on the real labels. */
     List<PermutationResult> run(List<Double> observed, Function<List<Callable<Double>>, List<Double>> executor,
                                 Runner.Counter counter) {
@@ -77,7 +101,11 @@ final class Permutations {
             active[p] = !Double.isNaN(obs);
             stop[p] = active[p] ? SequentialStop.start(obs, Math.min(h, n), n) : null;
         }
-        int batch = Math.max(2, 2 * state.threads());
+        // jobs per batch: several per thread, so that the slowest pipeline's fit does not leave the other threads idle
+        // at the batch's end (a barrier: the batch's imputations are dropped there), as long as the imputations of the
+        // permutations a batch holds stay within IMPUTATION_BUDGET
+        int batch = Math.max(2, 8 * state.threads());
+        long bytes = imputationBytes();
         while (anyActive(active)) {
             for (int p = 0; p < pipelines; p++) {
                 Double v;
@@ -98,7 +126,7 @@ final class Permutations {
             ready.run();
             List<int[]> jobs = new ArrayList<>();
             int activeCount = (int) java.util.stream.IntStream.range(0, pipelines).filter(p -> active[p]).count();
-            int per = Math.max(1, (int) Math.ceil(batch / (double) activeCount));
+            int per = perPipeline(batch, activeCount, bytes);
             for (int p = 0; p < pipelines; p++) {
                 for (int k = next[p]; active[p] && k < Math.min(n, next[p] + per); k++) {
                     jobs.add(new int[] {p, k});

@@ -195,4 +195,23 @@ class PermutationSchemeTest {
         assertTrue(e.getMessage().contains("significance.permutations"), e.getMessage());
         assertTrue(e.getMessage().contains("leave-one-out"), e.getMessage());
     }
+
+    /**
+     * Batches hold several permutations per pipeline when their imputations are small (so the threads are not left
+     * idle at each batch's end) and one when a permutation's imputations are large (1,000 subjects x 71,556 target
+     * edges x 5 folds x 2 imputers: about 2.9 GB). The rule, by hand.
+     */
+    @Test
+    void givenImputationSizes_whenBatched_thenSeveralPermutationsOnlyWithinTheMemoryBudget() {
+        // nested-160x35: 6 pipelines, 16 jobs per batch on 2 threads, 1 imputer x 10 folds x 160 x 595 floats
+        assertEquals(3, Permutations.perPipeline(16, 6, 10L * 160 * 595 * 4));
+        // demo-chance: 10 pipelines -> 2 each
+        assertEquals(2, Permutations.perPipeline(16, 10, 2L * 10 * 120 * 276 * 4));
+        // a wide cohort: one permutation at a time, whatever the jobs would allow
+        assertEquals(1, Permutations.perPipeline(16, 6, 2L * 5 * 1000 * 71_556 * 4));
+        // just over half the budget: one; a quarter: four
+        assertEquals(1, Permutations.perPipeline(64, 1, Permutations.IMPUTATION_BUDGET / 2 + 1));
+        assertEquals(4, Permutations.perPipeline(64, 1, Permutations.IMPUTATION_BUDGET / 4));
+        assertEquals(1, Permutations.perPipeline(2, 10, 1));
+    }
 }
