@@ -4,7 +4,8 @@
 # collector, as ./viewgain does on up to 4 processors). One markdown row per run.
 #   bench/compare-aims.sh OLD_ROOT [CASES]      CASES default: "demo demo chance nested apply"
 # chance is demo-chance.yaml with 49 permutations and no early stop; nested is bench/specs/nested-160x35.yaml;
-# apply needs the bundle and cohort of bench/apply.sh under bench/work/.
+# apply needs the bundle and cohort of bench/apply.sh under bench/work/. HEAP_OPTS (e.g. -Xmx64m) is given to both
+# builds: with a small heap, full collections happen and their after-figure is the live heap.
 set -euo pipefail
 here="$(cd "$(dirname "${BASH_SOURCE[0]}")" && pwd)"
 root="$(dirname "$here")"
@@ -21,8 +22,8 @@ sed -e "s#\.\./demo-data#$root/demo-data#g" -e "s/permutations: [0-9]*/permutati
 sed "s#\.\./work#$here/work#g" "$here/specs/nested-160x35.yaml" > "$tmp/nested.yaml"
 sed "s#\.\./work#$here/work#g" "$here/specs/apply-cohort-1000x268.yaml" > "$tmp/cohort.yaml"
 bundle="$(find "$here/work/apply-run" -name manifest.json -path '*/bundle/*' 2>/dev/null | head -1 | xargs -r dirname)"
-echo "| case | build | wall s | user s | sys s | peak RSS MB | heap after GC, max MB | load before |"
-echo "|---|---|---|---|---|---|---|---|"
+echo "| case | build | wall s | user s | sys s | peak RSS MB | heap after GC, max MB | after full GC, max MB | load before |"
+echo "|---|---|---|---|---|---|---|---|---|"
 for c in $cases; do
   for which in old new; do
     if [ "$which" = old ]; then cp="$old/target/viewgain.jar:$old/target/lib/*"; opts="${OLD_OPTS:-}"
@@ -33,10 +34,12 @@ for c in $cases; do
     esac
     rm -rf "$tmp/out"
     load="$(cut -d' ' -f1 /proc/loadavg)"
-    /usr/bin/time -f "%e %U %S %M" -o "$tmp/time" java $opts -Xlog:gc:file="$tmp/gc.log" -cp "$cp" \
+    /usr/bin/time -f "%e %U %S %M" -o "$tmp/time" java $opts ${HEAP_OPTS:-} -Xlog:gc:file="$tmp/gc.log" -cp "$cp" \
       org.viewgain.cli.Main "${args[@]}" \
       > "$tmp/log" 2>&1 || { cat "$tmp/log" >&2; exit 1; }
     heap="$(grep -o '[0-9]*M->[0-9]*M' "$tmp/gc.log" | sed 's/.*->//; s/M//' | sort -n | tail -1)"
-    echo "| $c | $which | $(awk '{printf "%s | %s | %s | %d", $1, $2, $3, $4 / 1024}' "$tmp/time") | ${heap:-none} | $load |"
+    # after a full collection the heap holds live data only (a young collection's figure includes old garbage)
+    live="$(grep 'Pause Full' "$tmp/gc.log" | grep -o '[0-9]*M->[0-9]*M' | sed 's/.*->//; s/M//' | sort -n | tail -1)"
+    echo "| $c | $which | $(awk '{printf "%s | %s | %s | %d", $1, $2, $3, $4 / 1024}' "$tmp/time") | ${heap:-none} | ${live:-no full GC} | $load |"
   done
 done

@@ -75,6 +75,11 @@ final class Permutations {
         return Math.max(1, imputers * state.slots() * perSlot);
     }
 
+    /** Jobs a batch aims at on {@code threads} threads: several per thread, so that no thread idles long at its end. */
+    static int jobsPerBatch(int threads) {
+        return Math.max(2, 8 * threads);
+    }
+
     /**
      * Permutations per active pipeline in one batch: {@code batch} jobs spread over the active pipelines (at least
      * one each), fewer when their imputations ({@code bytesPerPermutation} each) would pass the budget.
@@ -104,7 +109,7 @@ final class Permutations {
         // jobs per batch: several per thread, so that the slowest pipeline's fit does not leave the other threads idle
         // at the batch's end (a barrier: the batch's imputations are dropped there), as long as the imputations of the
         // permutations a batch holds stay within IMPUTATION_BUDGET
-        int batch = Math.max(2, 8 * state.threads());
+        int batch = jobsPerBatch(state.threads());
         long bytes = imputationBytes();
         while (anyActive(active)) {
             for (int p = 0; p < pipelines; p++) {

@@ -297,7 +297,9 @@ public final class Runner {
                         });
                     }
                 }
-                int per = Math.max(1, (int) Math.ceil(2.0 * threads / Math.max(1, ex.pipelines().size())));
+                // as many permutations per batch as a whole run's batches hold (Permutations.perPipeline)
+                int per = Permutations.perPipeline(Permutations.jobsPerBatch(threads), ex.pipelines().size(),
+                        perm.imputationBytes());
                 List<Callable<Void>> batch = new ArrayList<>();
                 int inBatch = 0;
                 for (List<Callable<Void>> tasksOfK : byPermutation.values()) {

@@ -41,7 +41,8 @@ public final class Distances {
      * Euclidean distances between rows from their Gram matrix ({@code g_ij} = row i . row j, e.g. from
      * {@link SmileMatrices#rowGram}): {@code sqrt(max(0, g_ii + g_jj - 2 g_ij))}, symmetric with a zero diagonal.
      * The squared distances agree with the sums of squared differences to rounding relative to the rows' squared
-     * lengths; where the rows are far from the origin next to their distances, prefer {@link #euclidean}.
+     * lengths; where the rows are far from the origin next to their distances, prefer {@link #euclidean}. A
+     * non-finite entry (from a non-finite value in a row) is refused, as {@link #euclidean} refuses the value.
      */
     public static double[][] euclideanFromGram(double[][] g) {
         int n = g.length;
@@ -49,6 +50,12 @@ public final class Distances {
         for (int i = 0; i < n; i++) {
             if (g[i].length != n) {
                 throw new IllegalArgumentException("Gram row " + i + " has " + g[i].length + " values, expected " + n);
+            }
+            for (int j = 0; j <= i; j++) {
+                if (!Double.isFinite(g[i][j])) {
+                    throw new IllegalArgumentException("non-finite Gram entry at " + i + ", " + j
+                            + " (a non-finite value in row " + i + " or " + j + ")");
+                }
             }
             for (int j = 0; j < i; j++) {
                 double v = Math.sqrt(Math.max(0, g[i][i] + g[j][j] - 2 * g[i][j]));

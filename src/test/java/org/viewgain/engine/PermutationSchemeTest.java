@@ -213,5 +213,9 @@ class PermutationSchemeTest {
         assertEquals(1, Permutations.perPipeline(64, 1, Permutations.IMPUTATION_BUDGET / 2 + 1));
         assertEquals(4, Permutations.perPipeline(64, 1, Permutations.IMPUTATION_BUDGET / 4));
         assertEquals(1, Permutations.perPipeline(2, 10, 1));
+        // the jobs a batch aims at: 16 on 2 threads, never fewer than 2
+        assertEquals(16, Permutations.jobsPerBatch(2));
+        assertEquals(8, Permutations.jobsPerBatch(1));
+        assertEquals(2, Permutations.jobsPerBatch(0));
     }
 }

@@ -137,6 +137,11 @@ class PermanovaTest {
             }
         }
         assertEquals(0.0, d[3][39], 1e-5);
+        // a non-finite value is refused, as the scalar distances refuse it
+        x[5][17] = Double.NaN;
+        double[][] bad = SmileMatrices.rowGram(x);
+        assertThrows(IllegalArgumentException.class, () -> Distances.euclideanFromGram(bad));
+        assertThrows(IllegalArgumentException.class, () -> Distances.euclidean(x));
     }
 
     @Test
