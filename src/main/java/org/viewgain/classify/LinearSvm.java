@@ -23,11 +23,26 @@ import org.viewgain.spec.Params;
  * of 8), 1.8 GB for one fit at 800 x 71,556. This solver works on the rows as given, without a copy, and is checked
  * against LIBLINEAR itself in the tests.
  *
+ * <p>Where the training rows are fewer than their features, a fit that has not converged after {@link #switchAfter}
+ * passes goes on with the same steps on the rows' Gram matrix (a step then costs n instead of p), computed once per
+ * set of training rows and shared by every later machine and grid point on them ({@link SharedGram}); results
+ * differ from the primal solver's by rounding only.
+ *
  * <p>Two classes: one machine, class 1 on the positive side; more: one machine per class against the rest. Scores
  * are decision values {@code w.x + b} (for two classes {@code scores[i][1]} is the value and {@code scores[i][0]} its
  * negative). Importance: {@code |w_j|} times input j's training standard deviation, kind {@code abs_weight}.
  */
 public final class LinearSvm implements ClassifierMethod {
+    private final java.util.function.Function<double[][], double[][]> gramOf;
+
+    public LinearSvm() {
+        this(LinearSvm::gram);
+    }
+
+    /** With another way to compute the Gram matrix (a seam for tests that count how often it happens). */
+    LinearSvm(java.util.function.Function<double[][], double[][]> gramOf) {
+        this.gramOf = gramOf;
+    }
 
     @Override
     public String method() {
@@ -65,53 +80,155 @@ public final class LinearSvm implements ClassifierMethod {
     }
 
     /**
-     * Solves one machine. {@code signs[i]} is +1 or -1; the rows are read, never written.
+     * Solves one machine by the primal solver alone. {@code signs[i]} is +1 or -1; the rows are read, never written.
      *
      * @param iterations most passes over the rows
      */
     static Machine solve(double[][] x, int[] signs, double c, double tolerance, int iterations, long seed) {
-        int n = x.length;
-        double[] qii = new double[n];
-        for (int i = 0; i < n; i++) {
-            double s = 1; // the constant input
-            for (double v : x[i]) {
-                s += v * v;
-            }
-            qii[i] = s;
-        }
-        Primal primal = new Primal(x);
-        Descent d = descend(primal, qii, signs, c, tolerance, iterations, seed);
-        return new Machine(primal.w, primal.b, d.passes(), d.converged());
+        return solve(x, signs, c, tolerance, iterations, seed, null);
     }
 
-    /** The rows' Gram matrix with the constant input: {@code K[i][j] = x_i . x_j + 1} (symmetric). */
+    /**
+     * {@link #solve} on the Gram matrix from the first pass: the same coordinate descent ({@link #descend}), keeping
+     * the decision values of all rows up to date instead of the weights (a step moves them by {@code d K[i]}), and
+     * forming {@code w} and {@code b} from the duals at the end. Equal to {@link #solve} up to rounding (checked in
+     * tests).
+     */
+    static Machine solveGram(double[][] gram, double[][] x, int[] signs, double c, double tolerance, int iterations,
+                             long seed) {
+        SharedGram shared = new SharedGram(x, rows -> gram);
+        shared.matrix(); // ready before the first pass
+        return solve(x, signs, c, tolerance, iterations, seed, shared);
+    }
+
+    /**
+     * Passes of the primal solver after which a fit that has not converged moves to the Gram matrix ({@link
+     * SharedGram}), for n rows. A primal pass costs about 2np multiply-adds (each row's decision value, then the move
+     * of the weights) and reads every row; the Gram matrix costs n^2 p / 2 multiply-adds, vectorized and blocked, and
+     * after it a pass costs about 2n^2. Per multiply-add the Gram matrix was measured 2.4 to 6 times faster than the
+     * passes (96 x 1,190: 1.0 ms, a pass 0.1 ms; 800 x 20,000: 0.6 s; docs/benchmarks.md). Taking the ratio as 4,
+     * moving after n/16 passes spends on the passes before the move what the matrix costs (the rent-or-buy rule), so
+     * a fit pays at most about twice what the cheaper way alone would; a fit that converges sooner (the demo's C =
+     * 0.001 takes about 6 passes) never builds it.
+     */
+    static int switchAfter(int n) {
+        return Math.max(1, n / 16);
+    }
+
+    /**
+     * The Gram matrix of one set of training rows, computed the first time a fit on those rows needs it (after
+     * {@link #switchAfter} passes) and then used from the first pass by every later machine and grid point fitted on
+     * the same rows. Made only for rows fewer than their features (otherwise a dual pass costs more than a primal
+     * one).
+     */
+    static final class SharedGram {
+        private final double[][] x;
+        private final java.util.function.Function<double[][], double[][]> gramOf;
+        private double[][] k;
+
+        SharedGram(double[][] x, java.util.function.Function<double[][], double[][]> gramOf) {
+            this.x = x;
+            this.gramOf = gramOf;
+        }
+
+        boolean ready() {
+            return k != null;
+        }
+
+        double[][] matrix() {
+            if (k == null) {
+                k = gramOf.apply(x);
+            }
+            return k;
+        }
+    }
+
+    /** Columns of the rows copied out together by {@link #gram} (64 x n doubles stay in the processor's cache). */
+    private static final int GRAM_BLOCK = 64;
+
+    /**
+     * The rows' Gram matrix with the constant input: {@code K[i][j] = x_i . x_j + 1} (symmetric). Computed a block of
+     * columns at a time: the block is copied out column by column, and each row of the lower triangle adds
+     * {@code x_i[j] * column j} for the block's columns (two at a time), a loop the just-in-time compiler turns into
+     * vector instructions (a dot product per entry is not: its sum is one chain of dependent additions). Every entry
+     * is summed in the same order on every machine.
+     */
     static double[][] gram(double[][] x) {
         int n = x.length;
+        int p = n == 0 ? 0 : x[0].length;
         double[][] k = new double[n][n];
+        double[][] columns = new double[Math.min(GRAM_BLOCK, p)][n];
+        for (int j0 = 0; j0 < p; j0 += GRAM_BLOCK) {
+            int width = Math.min(GRAM_BLOCK, p - j0);
+            for (int r = 0; r < n; r++) {
+                double[] row = x[r];
+                for (int b = 0; b < width; b++) {
+                    columns[b][r] = row[j0 + b];
+                }
+            }
+            for (int i = 0; i < n; i++) {
+                double[] ki = k[i];
+                double[] xi = x[i];
+                int b = 0;
+                for (; b + 1 < width; b += 2) {
+                    double u = xi[j0 + b];
+                    double v = xi[j0 + b + 1];
+                    double[] cu = columns[b];
+                    double[] cv = columns[b + 1];
+                    for (int r = 0; r <= i; r++) {
+                        ki[r] += u * cu[r] + v * cv[r];
+                    }
+                }
+                for (; b < width; b++) {
+                    double u = xi[j0 + b];
+                    double[] cu = columns[b];
+                    for (int r = 0; r <= i; r++) {
+                        ki[r] += u * cu[r];
+                    }
+                }
+            }
+        }
         for (int i = 0; i < n; i++) {
-            for (int j = 0; j <= i; j++) {
-                double v = RbfKernel.dot(x[i], x[j]) + 1;
-                k[i][j] = v;
-                k[j][i] = v;
+            for (int r = 0; r <= i; r++) {
+                double v = k[i][r] + 1;
+                k[i][r] = v;
+                k[r][i] = v;
             }
         }
         return k;
     }
 
     /**
-     * {@link #solve} on the Gram matrix: the same coordinate descent ({@link #descend}), keeping the decision values
-     * of all rows up to date instead of the weights (a step moves them by {@code d K[i]}), and forming {@code w} and
-     * {@code b} from the duals at the end. Equal to {@link #solve} up to rounding (checked in tests).
+     * Solves one machine: the primal solver, moving to the Gram matrix after {@link #switchAfter} passes when
+     * {@code gram} is given, or on it from the start when it is already computed. The same descent either way (same
+     * order, same steps); only rounding differs.
      */
-    static Machine solveGram(double[][] gram, double[][] x, int[] signs, double c, double tolerance, int iterations,
-                             long seed) {
+    static Machine solve(double[][] x, int[] signs, double c, double tolerance, int iterations, long seed,
+                         SharedGram gram) {
         int n = x.length;
         int p = x[0].length;
         double[] qii = new double[n];
-        for (int i = 0; i < n; i++) {
-            qii[i] = gram[i][i];
+        Decisions start;
+        if (gram != null && gram.ready()) {
+            double[][] k = gram.matrix();
+            for (int i = 0; i < n; i++) {
+                qii[i] = k[i][i];
+            }
+            start = new Dual(k);
+        } else {
+            for (int i = 0; i < n; i++) {
+                double s = 1; // the constant input
+                for (double v : x[i]) {
+                    s += v * v;
+                }
+                qii[i] = s;
+            }
+            start = new Primal(x);
         }
-        Descent d = descend(new Dual(gram), qii, signs, c, tolerance, iterations, seed);
+        Descent d = descend(start, gram, qii, signs, c, tolerance, iterations, seed);
+        if (d.decisions() instanceof Primal primal) {
+            return new Machine(primal.w, primal.b, d.passes(), d.converged());
+        }
         double[] w = new double[p];
         double b = 0;
         for (int i = 0; i < n; i++) {
@@ -172,6 +289,17 @@ public final class LinearSvm implements ClassifierMethod {
             this.f = new double[gram.length];
         }
 
+        /** The decision values of the duals so far: {@code f = sum_i alpha_i y_i K[i]}. */
+        static Dual at(double[][] gram, double[] alpha, int[] signs) {
+            Dual d = new Dual(gram);
+            for (int i = 0; i < alpha.length; i++) {
+                if (alpha[i] != 0) {
+                    d.move(i, alpha[i] * signs[i]);
+                }
+            }
+            return d;
+        }
+
         @Override
         public double value(int i) {
             return f[i];
@@ -186,17 +314,18 @@ public final class LinearSvm implements ClassifierMethod {
         }
     }
 
-    /** The duals at the end, the passes made and whether the stopping rule held. */
-    private record Descent(double[] alpha, int passes, boolean converged) {
+    /** The duals at the end, the passes made, whether the stopping rule held, and the decisions last kept. */
+    private record Descent(double[] alpha, int passes, boolean converged, Decisions decisions) {
     }
 
     /**
      * Coordinate descent on the dual (Hsieh et al. 2008, Algorithm 1): the rows in a seeded random order each pass;
      * a step clips {@code alpha_i - g / Q_ii} to [0, C]; stops when the projected gradient's spread is at most
-     * {@code tolerance} or after {@code iterations} passes.
+     * {@code tolerance} or after {@code iterations} passes. Primal decisions move to {@code gram} (when given) after
+     * {@link #switchAfter} passes.
      */
-    private static Descent descend(Decisions d, double[] qii, int[] signs, double c, double tolerance,
-                                   int iterations, long seed) {
+    private static Descent descend(Decisions d, SharedGram gram, double[] qii, int[] signs, double c,
+                                   double tolerance, int iterations, long seed) {
         int n = qii.length;
         double[] alpha = new double[n];
         int[] order = new int[n];
@@ -241,8 +370,11 @@ public final class LinearSvm implements ClassifierMethod {
                 converged = true;
                 break;
             }
+            if (gram != null && d instanceof Primal && pass >= switchAfter(n)) {
+                d = Dual.at(gram.matrix(), alpha, signs);
+            }
         }
-        return new Descent(alpha, pass, converged);
+        return new Descent(alpha, pass, converged, d);
     }
 
     @Override
@@ -252,22 +384,19 @@ public final class LinearSvm implements ClassifierMethod {
 
     @Override
     public Model fit(FitContext ctx, Rows x, int[] y, int classes, Params params) {
-        return fit(ctx, x, y, classes, params, null);
+        return fit(ctx, x, y, classes, params, sharedGram(x));
     }
 
     /**
-     * Grid points fitted on the same rows share the subjects' Gram matrix when it is cheaper than the passes it
-     * saves: building it costs about n/2 passes of the primal solver, and the dual steps on it cost n instead of p
-     * each. Taken when n &lt; 60 x (grid points), i.e. when the grid's fits would average more than about 30 passes
-     * each (measured: 69 at C = 0.1 and 6 at C = 0.001 on the demo); otherwise each point runs the primal solver.
+     * Fits the grid's points one after the other on one {@link SharedGram}: the first point that runs more than
+     * {@link #switchAfter} passes builds the rows' Gram matrix, and every later point (and machine) starts on it.
      */
     @Override
     public List<Model> fitGrid(List<FitContext> contexts, Rows x, int[] y, int classes, List<Params> grid) {
         if (contexts.size() != grid.size()) {
             throw new IllegalArgumentException("contexts " + contexts.size() + " != grid points " + grid.size());
         }
-        int n = x.n();
-        double[][] gram = n > 0 && n < 60 * grid.size() && n < x.p() ? gram(x.x()) : null;
+        SharedGram gram = sharedGram(x);
         List<Model> out = new java.util.ArrayList<>(grid.size());
         for (int g = 0; g < grid.size(); g++) {
             out.add(fit(contexts.get(g), x, y, classes, grid.get(g), gram));
@@ -275,18 +404,19 @@ public final class LinearSvm implements ClassifierMethod {
         return out;
     }
 
-    private Model fit(FitContext ctx, Rows x, int[] y, int classes, Params params, double[][] gram) {
+    private SharedGram sharedGram(Rows x) {
+        return x.n() > 0 && x.n() < x.p() ? new SharedGram(x.x(), gramOf) : null;
+    }
+
+    private Model fit(FitContext ctx, Rows x, int[] y, int classes, Params params, SharedGram gram) {
         TrainingLabels.check(method(), x, y, classes);
         int machines = OneAgainstRest.machines(classes);
         Machine[] fitted = new Machine[machines];
         for (int m = 0; m < machines; m++) {
             int[] signs = OneAgainstRest.signs(y, classes, m);
             long seed = Seeds.derive(ctx.seed(), "svm-linear", m);
-            fitted[m] = gram == null
-                    ? solve(x.x(), signs, params.getDouble("C"), params.getDouble("tolerance"),
-                            params.getInt("iterations"), seed)
-                    : solveGram(gram, x.x(), signs, params.getDouble("C"), params.getDouble("tolerance"),
-                            params.getInt("iterations"), seed);
+            fitted[m] = solve(x.x(), signs, params.getDouble("C"), params.getDouble("tolerance"),
+                    params.getInt("iterations"), seed, gram);
         }
         double[] b = new double[machines];
         for (int m = 0; m < machines; m++) {

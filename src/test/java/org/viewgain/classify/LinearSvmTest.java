@@ -274,12 +274,17 @@ class LinearSvmTest {
             ids.add("s" + i);
         }
         org.viewgain.cohort.Rows rows = new org.viewgain.cohort.Rows(ids, x, names);
-        LinearSvm svm = new LinearSvm();
+        int[] grams = {0};
+        LinearSvm svm = new LinearSvm(rowsIn -> {
+            grams[0]++;
+            return LinearSvm.gram(rowsIn);
+        });
         FitContext ctx = new FitContext(0, 0, 0, FitContext.WHOLE, FitContext.Role.FINAL, 3L);
         java.util.List<org.viewgain.spec.Params> grid = java.util.List.of(svm.resolve(java.util.Map.of("C", 0.001)),
                 svm.resolve(java.util.Map.of("C", 0.1)));
-        assertTrue(n < 60 * grid.size() && n < x[0].length, "the grid takes the Gram path");
         java.util.List<ClassifierMethod.Model> together = svm.fitGrid(java.util.List.of(ctx, ctx), rows, y, 3, grid);
+        // three machines per point, six fits, at least one running past the switch: one Gram matrix for them all
+        assertEquals(1, grams[0], "Gram matrices computed for the grid");
         for (int g = 0; g < grid.size(); g++) {
             Predictions a = together.get(g).predict(rows);
             Predictions b = svm.fit(ctx, rows, y, 3, grid.get(g)).predict(rows);
@@ -287,5 +292,75 @@ class LinearSvmTest {
                 assertArrayEquals(b.scores()[i], a.scores()[i], 1e-9, "subject " + i + " point " + g);
             }
         }
+    }
+
+    /**
+     * A fit that runs past {@link LinearSvm#switchAfter} passes moves to the Gram matrix and goes on with the same
+     * steps: the same passes and the same weights to 1e-9 as the primal solver alone, on breast-cancer-wisconsin
+     * (Wolberg et al. 1995; 120 rows) and on wide invented data; the matrix is computed once, and not at all for a fit
+     * that converges first.
+     */
+    @Test
+    void givenAFitPastTheSwitch_whenSolved_thenThePrimalSolversWeightsFromOneGramMatrix() {
+        ReferenceTable cancer = ReferenceTable.load("breast-cancer-wisconsin.csv").standardized();
+        double[][] wdbc = java.util.Arrays.copyOf(cancer.rows().x(), 120);
+        int[] wdbcSigns = new int[wdbc.length];
+        for (int i = 0; i < wdbc.length; i++) {
+            wdbcSigns[i] = cancer.y()[i] == 1 ? 1 : -1;
+        }
+        SplittableRandom rnd = new SplittableRandom(8);
+        double[][] wide = new double[64][441];
+        int[] wideSigns = new int[wide.length];
+        for (int i = 0; i < wide.length; i++) {
+            wideSigns[i] = i % 2 == 0 ? 1 : -1;
+            for (int j = 0; j < wide[i].length; j++) {
+                wide[i][j] = rnd.nextGaussian() + (j < 20 ? 0.3 * wideSigns[i] : 0);
+            }
+        }
+        int switched = 0;
+        int unswitched = 0;
+        for (Object[] c : new Object[][] {{wdbc, wdbcSigns}, {wide, wideSigns}}) {
+            double[][] x = (double[][]) c[0];
+            int[] signs = (int[]) c[1];
+            for (double cost : new double[] {0.0001, 0.1, 1.0, 10.0}) {
+                int[] grams = {0};
+                LinearSvm.SharedGram gram = new LinearSvm.SharedGram(x, rows -> {
+                    grams[0]++;
+                    return LinearSvm.gram(rows);
+                });
+                LinearSvm.Machine primal = LinearSvm.solve(x, signs, cost, 0.1, 1000, 11);
+                LinearSvm.Machine moved = LinearSvm.solve(x, signs, cost, 0.1, 1000, 11, gram);
+                boolean past = primal.passes() > LinearSvm.switchAfter(x.length);
+                assertEquals(past ? 1 : 0, grams[0], "Gram matrices at C " + cost);
+                switched += past ? 1 : 0;
+                unswitched += past ? 0 : 1;
+                assertEquals(primal.passes(), moved.passes(), "passes at C " + cost);
+                double scale = java.util.Arrays.stream(primal.w()).map(Math::abs).max().orElse(1);
+                for (int j = 0; j < primal.w().length; j++) {
+                    assertEquals(primal.w()[j], moved.w()[j], 1e-9 * scale, "weight " + j + " at C " + cost);
+                }
+                assertEquals(primal.b(), moved.b(), 1e-9 * Math.max(1, Math.abs(primal.b())), "intercept at C " + cost);
+                // a second fit on the same rows starts on the matrix already there
+                LinearSvm.solve(x, signs, cost * 2, 0.1, 1000, 12, gram);
+                assertTrue(grams[0] <= 1, "one Gram matrix per set of rows at C " + cost);
+            }
+        }
+        assertTrue(switched >= 2 && unswitched >= 1, "both cases seen: " + switched + " switched, " + unswitched
+                + " converged first");
+    }
+
+    /** Rows at least as many as their features never get a Gram matrix (a dual pass would cost more). */
+    @Test
+    void givenRowsNotFewerThanFeatures_whenFitted_thenNoGramMatrix() {
+        ReferenceTable iris = ReferenceTable.load("iris.csv").standardized();
+        int[] grams = {0};
+        LinearSvm svm = new LinearSvm(rows -> {
+            grams[0]++;
+            return LinearSvm.gram(rows);
+        });
+        FitContext ctx = new FitContext(0, 0, 0, FitContext.WHOLE, FitContext.Role.FINAL, 3L);
+        ClassifierMethod.Model m = svm.fit(ctx, iris.rows(), iris.y(), 3, svm.resolve(java.util.Map.of("C", 10.0)));
+        assertTrue(m.predict(iris.rows()).labels().length == iris.y().length);
+        assertEquals(0, grams[0], "Gram matrices for 150 rows of 4 features");
     }
 }
