@@ -122,18 +122,24 @@ public final class BinnedForest implements ClassifierMethod {
     }
 
     /**
-     * The training rows coded by bin, feature-major ({@code code[j][i]}, unsigned), with each feature's thresholds:
-     * a value goes left of threshold {@code b} when it is at most {@code edges[j][b]}, so its bin is the number of
-     * edges below it.
+     * The training rows coded by bin, feature-major in one array ({@code codes[j * n + i]}, unsigned: one object, so
+     * that reaching a drawn feature's codes costs no reference to follow), with each feature's thresholds: a value
+     * goes left of threshold {@code b} when it is at most {@code edges[j][b]}, so its bin is the number of edges below
+     * it.
      */
-    record Bins(byte[][] code, double[][] edges, int n) {
+    record Bins(byte[] codes, double[][] edges, int n) {
         /** Columns copied out of the rows together. */
         private static final int COLUMN_BLOCK = 64;
 
         static Bins of(double[][] x) {
             int n = x.length;
             int p = n == 0 ? 0 : x[0].length;
-            byte[][] code = new byte[p][n];
+            if ((long) p * n > Integer.MAX_VALUE - 16) {
+                throw new IllegalArgumentException("random-forest: " + n + " training rows x " + p + " features is"
+                        + " more than one array of bin codes holds (2^31 bytes); use fewer features (e.g. a"
+                        + " features.select step) or method weka with class weka.classifiers.trees.RandomForest");
+            }
+            byte[] codes = new byte[p * n];
             double[][] edges = new double[p][];
             double[] sorted = new double[n];
             int[] order = new int[n];
@@ -161,17 +167,17 @@ public final class BinnedForest implements ClassifierMethod {
                 edges[j] = e;
                 // the bin of a value is the number of edges strictly below it: one walk up the sorted values
                 // gives every row's bin (as bin() would, without a search per value)
-                byte[] c = code[j];
+                int at = j * n;
                 int b = 0;
                 for (int k = 0; k < n; k++) {
                     double v = sorted[k];
                     while (b < e.length && e[b] < v) {
                         b++;
                     }
-                    c[order[k]] = (byte) b;
+                    codes[at + order[k]] = (byte) b;
                 }
             }
-            return new Bins(code, edges, n);
+            return new Bins(codes, edges, n);
         }
 
         /**
@@ -260,6 +266,15 @@ public final class BinnedForest implements ClassifierMethod {
 
         int bins(int j) {
             return edges[j].length + 1;
+        }
+
+        /** The bin of row i of feature j. */
+        int code(int j, int i) {
+            return codes[j * n + i] & 0xff;
+        }
+
+        int p() {
+            return edges.length;
         }
     }
 

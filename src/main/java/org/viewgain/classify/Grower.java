@@ -19,6 +19,9 @@ final class Grower {
     private final int n;
     private final int p;
 
+    private final byte[] codes;
+    // features with at least two bins in the training rows (the others are constant there)
+    private final boolean[] splittable;
     private final int[] count;
     private final int[] rows;
     private final int[] features;
@@ -50,7 +53,12 @@ final class Grower {
         this.maxDepth = maxDepth;
         this.minLeaf = minLeaf;
         this.n = bins.n();
-        this.p = bins.code().length;
+        this.p = bins.p();
+        codes = bins.codes();
+        splittable = new boolean[p];
+        for (int j = 0; j < p; j++) {
+            splittable[j] = bins.bins(j) >= 2;
+        }
         count = new int[n];
         rows = new int[n];
         features = new int[p];
@@ -103,12 +111,12 @@ final class Grower {
             int f = bestFeature;
             int b = bestBin;
             importance[f] += bestDecrease;
-            byte[] code = bins.code()[f];
+            int at = f * n;
             // partition [lo, hi) in place: rows with bin <= b first
             int i = lo;
             int j = hi - 1;
             while (i <= j) {
-                if ((code[rows[i]] & 0xff) <= b) {
+                if ((codes[at + rows[i]] & 0xff) <= b) {
                     i++;
                 } else {
                     int t = rows[i];
@@ -165,17 +173,16 @@ final class Grower {
             int f = features[r];
             features[r] = features[k];
             features[k] = f;
-            int nb = bins.bins(f);
-            if (nb < 2) {
+            if (!splittable[f]) {
                 continue; // constant in the training rows
             }
-            byte[] code = bins.code()[f];
+            int at = f * n;
             // a class histogram over the bins the node's rows occupy, with a bitmap of those bins, so that the scan
             // visits occupied bins only (at most as many as rows, in bin order) and clears them as it goes; the
             // histogram and the bitmap are all zeros between uses
             for (int t = lo; t < hi; t++) {
                 int row = rows[t];
-                int bin = code[row] & 0xff;
+                int bin = codes[at + row] & 0xff;
                 hist[bin * classes + y[row]] += count[row];
                 occupied[bin >>> 6] |= 1L << bin;
             }
@@ -251,12 +258,12 @@ final class Grower {
             int f = features[r];
             features[r] = features[k];
             features[k] = f;
-            if (bins.bins(f) < 2) {
+            if (!splittable[f]) {
                 continue; // constant in the training rows
             }
-            byte[] code = bins.code()[f];
+            int at = f * n;
             for (int t = 0; t < m; t++) {
-                int bin = code[rows[lo + t]] & 0xff;
+                int bin = codes[at + rows[lo + t]] & 0xff;
                 binCounts[bin] += nodeCounts[t];
                 occupied[bin >>> 6] |= 1L << bin;
             }

@@ -279,7 +279,7 @@ class BinnedForestTest {
                     org.junit.jupiter.api.Assertions.assertArrayEquals(edges, bins.edges()[j], 0.0,
                             "edges, n " + n + " kind " + kind);
                     for (int i = 0; i < n; i++) {
-                        assertEquals(BinnedForest.Bins.bin(edges, x[i][j]), bins.code()[j][i] & 0xff,
+                        assertEquals(BinnedForest.Bins.bin(edges, x[i][j]), bins.code(j, i),
                                 "code of row " + i + ", n " + n + " kind " + kind);
                         checked++;
                     }
