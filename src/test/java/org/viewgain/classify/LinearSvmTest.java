@@ -207,22 +207,7 @@ class LinearSvmTest {
      */
     @Test
     void givenTheGramSolver_whenSolved_thenThePrimalSolversStepsAndLiblinearsWeights() {
-        ReferenceTable cancer = ReferenceTable.load("breast-cancer-wisconsin.csv").standardized();
-        double[][] wdbc = java.util.Arrays.copyOf(cancer.rows().x(), 120);
-        int[] wdbcSigns = new int[wdbc.length];
-        for (int i = 0; i < wdbc.length; i++) {
-            wdbcSigns[i] = cancer.y()[i] == 1 ? 1 : -1;
-        }
-        SplittableRandom rnd = new SplittableRandom(5);
-        double[][] wide = new double[64][441];
-        int[] wideSigns = new int[wide.length];
-        for (int i = 0; i < wide.length; i++) {
-            wideSigns[i] = i % 2 == 0 ? 1 : -1;
-            for (int j = 0; j < wide[i].length; j++) {
-                wide[i][j] = rnd.nextGaussian() + (j < 20 ? 0.3 * wideSigns[i] : 0);
-            }
-        }
-        for (Object[] c : new Object[][] {{wdbc, wdbcSigns}, {wide, wideSigns}}) {
+        for (Object[] c : wdbcAndWide(5)) {
             double[][] x = (double[][]) c[0];
             int[] signs = (int[]) c[1];
             double[][] gram = LinearSvm.gram(x);
@@ -302,24 +287,9 @@ class LinearSvmTest {
      */
     @Test
     void givenAFitPastTheSwitch_whenSolved_thenThePrimalSolversWeightsFromOneGramMatrix() {
-        ReferenceTable cancer = ReferenceTable.load("breast-cancer-wisconsin.csv").standardized();
-        double[][] wdbc = java.util.Arrays.copyOf(cancer.rows().x(), 120);
-        int[] wdbcSigns = new int[wdbc.length];
-        for (int i = 0; i < wdbc.length; i++) {
-            wdbcSigns[i] = cancer.y()[i] == 1 ? 1 : -1;
-        }
-        SplittableRandom rnd = new SplittableRandom(8);
-        double[][] wide = new double[64][441];
-        int[] wideSigns = new int[wide.length];
-        for (int i = 0; i < wide.length; i++) {
-            wideSigns[i] = i % 2 == 0 ? 1 : -1;
-            for (int j = 0; j < wide[i].length; j++) {
-                wide[i][j] = rnd.nextGaussian() + (j < 20 ? 0.3 * wideSigns[i] : 0);
-            }
-        }
         int switched = 0;
         int unswitched = 0;
-        for (Object[] c : new Object[][] {{wdbc, wdbcSigns}, {wide, wideSigns}}) {
+        for (Object[] c : wdbcAndWide(8)) {
             double[][] x = (double[][]) c[0];
             int[] signs = (int[]) c[1];
             for (double cost : new double[] {0.0001, 0.1, 1.0, 10.0}) {
@@ -362,5 +332,28 @@ class LinearSvmTest {
         ClassifierMethod.Model m = svm.fit(ctx, iris.rows(), iris.y(), 3, svm.resolve(java.util.Map.of("C", 10.0)));
         assertTrue(m.predict(iris.rows()).labels().length == iris.y().length);
         assertEquals(0, grams[0], "Gram matrices for 150 rows of 4 features");
+    }
+
+    /**
+     * Two training sets as {rows, signs}: the first 120 rows of breast-cancer-wisconsin (Wolberg et al. 1995),
+     * standardized, and 64 x 441 invented Gaussian rows shifted by 0.3 on the first 20 columns by class.
+     */
+    private static Object[][] wdbcAndWide(long seed) {
+        ReferenceTable cancer = ReferenceTable.load("breast-cancer-wisconsin.csv").standardized();
+        double[][] wdbc = java.util.Arrays.copyOf(cancer.rows().x(), 120);
+        int[] wdbcSigns = new int[wdbc.length];
+        for (int i = 0; i < wdbc.length; i++) {
+            wdbcSigns[i] = cancer.y()[i] == 1 ? 1 : -1;
+        }
+        SplittableRandom rnd = new SplittableRandom(seed);
+        double[][] wide = new double[64][441];
+        int[] wideSigns = new int[wide.length];
+        for (int i = 0; i < wide.length; i++) {
+            wideSigns[i] = i % 2 == 0 ? 1 : -1;
+            for (int j = 0; j < wide[i].length; j++) {
+                wide[i][j] = rnd.nextGaussian() + (j < 20 ? 0.3 * wideSigns[i] : 0);
+            }
+        }
+        return new Object[][] {{wdbc, wdbcSigns}, {wide, wideSigns}};
     }
 }
