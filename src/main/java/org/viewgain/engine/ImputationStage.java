@@ -119,40 +119,54 @@ final class ImputationStage {
                 tasks.add(ImputationTasks.crossFit(ex, level.base().repeat(), level.base().outerFold(), train,
                         level.foldOf(), j));
             }
-            double best = Double.POSITIVE_INFINITY;
-            float[][] bestPreds = null;
-            for (Params p : imp.grid()) {
-                float[][] preds = new float[d.n()][];
-                double absSum = 0;
-                long cells = 0;
-                for (ImputationTasks.Task task : tasks) {
-                    int[] predSet = task.imputePositions();
-                    if (predSet.length == 0) {
-                        continue;
+            // task by task, every grid point fitted on the task's rows together (label-free work on the rows is
+            // then done once, e.g. ridge's Gram matrix), each point's errors summed in task order as before
+            List<Params> grid = imp.grid();
+            double[] absSum = new double[grid.size()];
+            long cells = 0;
+            float[][][] preds = new float[grid.size()][d.n()][];
+            for (ImputationTasks.Task task : tasks) {
+                int[] predSet = task.imputePositions();
+                if (predSet.length == 0) {
+                    continue;
+                }
+                int[] fitSet = task.trainPositions();
+                List<FitContext> contexts = new ArrayList<>(grid.size());
+                for (Params p : grid) {
+                    contexts.add(level.at(level.crossFitRole(), task.inner(),
+                            level.seed(runSeed, task.inner(), imp.name(), p.toString())));
+                }
+                List<ViewImputer.Fitted> fitted = imp.method().fitGrid(contexts, sourceRows(fitSet),
+                        targetRows(fitSet), grid, d.sourceDistances());
+                List<double[][]> got = imp.method().imputeGrid(contexts, fitted, sourceRows(predSet));
+                fitted = null;
+                for (int t = 0; t < predSet.length; t++) {
+                    int i = predSet[t];
+                    for (int g = 0; g < grid.size(); g++) {
+                        preds[g][i] = ImputedFold.compact(got.get(g)[t]);
                     }
-                    int[] fitSet = task.trainPositions();
-                    FitContext ctx = level.at(level.crossFitRole(), task.inner(),
-                            level.seed(runSeed, task.inner(), imp.name(), p.toString()));
-                    ViewImputer.Fitted fitted = imp.method().fit(ctx, sourceRows(fitSet), targetRows(fitSet), p,
-                            d.sourceDistances());
-                    double[][] got = fitted.impute(ctx, sourceRows(predSet));
-                    for (int t = 0; t < predSet.length; t++) {
-                        int i = predSet[t];
-                        preds[i] = ImputedFold.compact(got[t]);
-                        if (d.hasTarget(i)) {
-                            double[] obs = d.target().base(d.id(i));
+                    if (d.hasTarget(i)) {
+                        double[] obs = d.target().base(d.id(i));
+                        for (int g = 0; g < grid.size(); g++) {
+                            double[] row = got.get(g)[t];
+                            double sum = absSum[g];
                             for (int c = 0; c < obs.length; c++) {
-                                absSum += Math.abs(obs[c] - got[t][c]);
+                                sum += Math.abs(obs[c] - row[c]);
                             }
-                            cells += obs.length;
+                            absSum[g] = sum;
                         }
+                        cells += obs.length;
                     }
                 }
-                double mae = absSum / cells;
+            }
+            double best = Double.POSITIVE_INFINITY;
+            float[][] bestPreds = null;
+            for (int g = 0; g < grid.size(); g++) {
+                double mae = absSum[g] / cells;
                 if (mae < best) {
                     best = mae;
-                    bestPreds = preds;
-                    chosen = p;
+                    bestPreds = preds[g];
+                    chosen = grid.get(g);
                 }
             }
             innerMae = best;

@@ -27,6 +27,8 @@ public final class FrozenImputers {
             case Neighbours.KIND -> new Neighbours(in.matrix(), in.matrix(), in.integer(), in.integer() == 1);
             case RidgePrimal.KIND -> new RidgePrimal(in.numbers(), in.numbers(), in.matrix());
             case RidgeDual.KIND -> new RidgeDual(in.numbers(), in.numbers(), in.matrix(), in.matrix());
+            case RidgeDualInverse.KIND -> new RidgeDualInverse(in.numbers(), in.numbers(), in.matrix(), in.matrix(),
+                    in.matrix());
             case Pls.KIND -> new Pls(new SimplsModel(in.numbers(), in.numbers(), in.matrix(), in.matrix(), null),
                     in.integer());
             case MultiKernel.KIND -> new MultiKernel(in.numbers(), in.matrix(), LocalScaleKernels.thaw(in),
@@ -112,7 +114,45 @@ public final class FrozenImputers {
         }
     }
 
-    /** Ridge in its dual form: {@code (x - mx) Xc' A + my}, with the centred training rows {@code Xc}. */
+    /**
+     * Ridge in its dual form as fitted: {@code ((x - mx) Xc') Z Yc + my}, with the centred training rows {@code Xc}
+     * and targets {@code Yc} and {@code Z = (Xc Xc' + alpha I)^-1}.
+     */
+    record RidgeDualInverse(double[] mx, double[] my, double[][] xc, double[][] z, double[][] yc)
+            implements ViewImputer.Fitted, Freezable {
+        static final String KIND = "imputer-ridge-dual-inverse";
+
+        @Override
+        public double[][] impute(FitContext ctx, Rows rows) {
+            return impute(cross(rows));
+        }
+
+        /** The rows' products with the training rows, {@code (x - mx) Xc'}. */
+        double[][] cross(Rows rows) {
+            Shapes.checkWidth(RidgeImputer.METHOD, rows, mx.length);
+            return SmileMatrices.cross(Centring.centre(rows.x(), mx), xc);
+        }
+
+        /** The imputations from the rows' {@link #cross} products. */
+        double[][] impute(double[][] cross) {
+            return RidgeImputer.addMeans(SmileMatrices.times(SmileMatrices.times(cross, z), yc), my);
+        }
+
+        @Override
+        public String kind() {
+            return KIND;
+        }
+
+        @Override
+        public void freeze(FrozenOut out) {
+            out.numbers(mx).numbers(my).matrix(xc).matrix(z).matrix(yc);
+        }
+    }
+
+    /**
+     * Ridge in its dual form as bundles of earlier versions hold it: {@code (x - mx) Xc' A + my}, with the centred
+     * training rows {@code Xc} and {@code A = (Xc Xc' + alpha I)^-1 Yc}; read, no longer fitted.
+     */
     record RidgeDual(double[] mx, double[] my, double[][] xc, double[][] a) implements ViewImputer.Fitted, Freezable {
         static final String KIND = "imputer-ridge-dual";
 

@@ -11,7 +11,9 @@ import org.viewgain.stats.SmileMatrices;
  * Multi-output ridge regression (Hoerl &amp; Kennard 1970) with an unpenalised intercept: source and target are
  * centred on their training means and {@code B = (X'X + alpha I)^-1 X'Y}. When source features outnumber training
  * subjects the equal dual (kernel) form {@code B = X'(XX' + alpha I)^-1 Y} is solved instead (an n x n system in
- * place of p x p; Saunders, Gammerman &amp; Vovk 1998). Both are solved by Cholesky.
+ * place of p x p; Saunders, Gammerman &amp; Vovk 1998). Both are solved by Cholesky; the dual keeps the inverse of
+ * the n x n system, so that imputing costs two products with it instead of a solve with one right side per target
+ * feature at fit time. The points of a grid fitted together ({@link #fitGrid}) share the centring and the Gram matrix.
  */
 public final class RidgeImputer implements ViewImputer {
 
@@ -37,6 +39,17 @@ public final class RidgeImputer implements ViewImputer {
         return true;
     }
 
+    /** Computes the Gram matrix of the centred training rows (a seam for tests that count how often it happens). */
+    private final java.util.function.UnaryOperator<double[][]> gramOf;
+
+    public RidgeImputer() {
+        this(SmileMatrices::gram);
+    }
+
+    RidgeImputer(java.util.function.UnaryOperator<double[][]> gramOf) {
+        this.gramOf = gramOf;
+    }
+
     @Override
     public Fitted fit(FitContext ctx, Rows source, Rows target, Params params) {
         return fit(source, target, params.getDouble("alpha"), Form.AUTO);
@@ -44,6 +57,24 @@ public final class RidgeImputer implements ViewImputer {
 
     /** The fit with a chosen form, for checking that both forms agree. */
     Fitted fit(Rows source, Rows target, double alpha, Form form) {
+        return fitAll(source, target, new double[] {alpha}, form).get(0);
+    }
+
+    /**
+     * Every alpha of the grid on one centring of the rows and, in the dual form, one Gram matrix: each point's model
+     * is the one {@link #fit} gives for it alone, bit for bit.
+     */
+    @Override
+    public List<Fitted> fitGrid(List<FitContext> contexts, Rows source, Rows target, List<Params> grid,
+                                SourceDistances shared) {
+        double[] alphas = new double[grid.size()];
+        for (int g = 0; g < alphas.length; g++) {
+            alphas[g] = grid.get(g).getDouble("alpha");
+        }
+        return fitAll(source, target, alphas, Form.AUTO);
+    }
+
+    private List<Fitted> fitAll(Rows source, Rows target, double[] alphas, Form form) {
         Shapes.checkTraining(METHOD, source, target);
         int n = source.n();
         int p = source.p();
@@ -52,17 +83,56 @@ public final class RidgeImputer implements ViewImputer {
         double[][] xc = Centring.centre(source.x(), mx);
         double[][] yc = Centring.centre(target.x(), my);
         boolean dual = form == Form.DUAL || (form == Form.AUTO && p > n);
+        List<Fitted> out = new java.util.ArrayList<>(alphas.length);
         if (dual) {
-            // predictions (x - mx) Xc' A + my: the p x q coefficient matrix is never formed
-            double[][] k = SmileMatrices.gram(xc);
-            addToDiagonal(k, alpha);
-            double[][] a = SmileMatrices.solveSpd(k, yc);
-            return new FrozenImputers.RidgeDual(mx, my, xc, a);
+            // predictions (x - mx) Xc' (K + alpha I)^-1 Yc + my, K = Xc Xc': with the n x n inverse kept, neither the
+            // p x q coefficients nor the n x q solution (K + alpha I)^-1 Yc is formed (a Cholesky solve with one right
+            // side per target feature cost more than everything else in the fit)
+            double[][] k = gramOf.apply(xc);
+            for (double alpha : alphas) {
+                double[][] ka = new double[n][];
+                for (int i = 0; i < n; i++) {
+                    ka[i] = k[i].clone();
+                    ka[i][i] += alpha;
+                }
+                out.add(new FrozenImputers.RidgeDualInverse(mx, my, xc, SmileMatrices.inverseSpd(ka), yc));
+            }
+            return out;
         }
         double[][] g = SmileMatrices.transposeTimes(xc, xc);
-        addToDiagonal(g, alpha);
-        double[][] coef = SmileMatrices.solveSpd(g, SmileMatrices.transposeTimes(xc, yc));
-        return new FrozenImputers.RidgePrimal(mx, my, coef);
+        double[][] xy = SmileMatrices.transposeTimes(xc, yc);
+        for (double alpha : alphas) {
+            double[][] ga = new double[p][];
+            for (int i = 0; i < p; i++) {
+                ga[i] = g[i].clone();
+                ga[i][i] += alpha;
+            }
+            out.add(new FrozenImputers.RidgePrimal(mx, my, SmileMatrices.solveSpd(ga, xy)));
+        }
+        return out;
+    }
+
+    /**
+     * Each model's imputations, as its own {@link Fitted#impute} gives them bit for bit; dual models fitted together
+     * on one centring share the products of the rows with the training rows.
+     */
+    @Override
+    public List<double[][]> imputeGrid(List<FitContext> contexts, List<Fitted> fitted, Rows source) {
+        double[][] cross = null;
+        FrozenImputers.RidgeDualInverse first = null;
+        List<double[][]> out = new java.util.ArrayList<>(fitted.size());
+        for (int g = 0; g < fitted.size(); g++) {
+            if (fitted.get(g) instanceof FrozenImputers.RidgeDualInverse d) {
+                if (first == null || d.xc() != first.xc() || d.mx() != first.mx()) {
+                    first = d;
+                    cross = d.cross(source);
+                }
+                out.add(d.impute(cross));
+            } else {
+                out.add(fitted.get(g).impute(contexts.get(g), source));
+            }
+        }
+        return out;
     }
 
     static double[][] addMeans(double[][] out, double[] my) {
@@ -72,11 +142,5 @@ public final class RidgeImputer implements ViewImputer {
             }
         }
         return out;
-    }
-
-    private static void addToDiagonal(double[][] a, double v) {
-        for (int i = 0; i < a.length; i++) {
-            a[i][i] += v;
-        }
     }
 }

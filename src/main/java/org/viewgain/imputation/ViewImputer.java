@@ -59,6 +59,32 @@ public interface ViewImputer {
         return fit(ctx, source, target, params);
     }
 
+    /**
+     * Fits every point of a grid on the same rows, one context per point: the same models as {@link #fit} point by
+     * point (the default does exactly that). A method whose label-free work on the rows does not depend on the point
+     * does it once for all of them ({@code ridge}: the centred rows and their Gram matrix).
+     */
+    default List<Fitted> fitGrid(List<FitContext> contexts, Rows source, Rows target, List<Params> grid,
+                                 SourceDistances shared) {
+        List<Fitted> out = new java.util.ArrayList<>(grid.size());
+        for (int g = 0; g < grid.size(); g++) {
+            out.add(fit(contexts.get(g), source, target, grid.get(g), shared));
+        }
+        return out;
+    }
+
+    /**
+     * Imputes the same rows with each model of one {@link #fitGrid}: the same numbers as each model's {@link
+     * Fitted#impute} (the default calls it); {@code ridge} computes the rows' products with its training rows once.
+     */
+    default List<double[][]> imputeGrid(List<FitContext> contexts, List<Fitted> fitted, Rows source) {
+        List<double[][]> out = new java.util.ArrayList<>(fitted.size());
+        for (int g = 0; g < fitted.size(); g++) {
+            out.add(fitted.get(g).impute(contexts.get(g), source));
+        }
+        return out;
+    }
+
     /** A fitted imputer. */
     interface Fitted {
         /**

@@ -139,6 +139,17 @@ public final class SmileMatrices {
     }
 
     /**
+     * The inverse of a symmetric positive definite {@code a} by Cholesky (LAPACK potrf, then potrs on the identity).
+     *
+     * @throws ArithmeticException when {@code a} is not positive definite
+     */
+    public static double[][] inverseSpd(double[][] a) {
+        Matrix ma = matrix(a);
+        ma.uplo(UPLO.LOWER);
+        return rows(ma.cholesky().inverse());
+    }
+
+    /**
      * Eigen-decomposition of a symmetric matrix, eigenvalues in descending order.
      *
      * @return values[i] and the matching unit eigenvector in column i of vectors

@@ -1,15 +1,24 @@
 package org.viewgain.imputation;
 
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import org.apache.commons.math3.linear.Array2DRowRealMatrix;
 import org.apache.commons.math3.linear.ArrayRealVector;
 import org.apache.commons.math3.linear.QRDecomposition;
 import org.apache.commons.math3.linear.RealMatrix;
 import org.apache.commons.math3.linear.RealVector;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.atomic.AtomicInteger;
 import org.junit.jupiter.api.Test;
 import org.viewgain.cohort.Rows;
+import org.viewgain.folds.FitContext;
+import org.viewgain.frozen.FrozenIn;
+import org.viewgain.frozen.FrozenOut;
 import org.viewgain.spec.Params;
+import org.viewgain.stats.SmileMatrices;
 
 class RidgeImputerTest {
 
@@ -94,5 +103,68 @@ class RidgeImputerTest {
             double[][] dual = ridge.fit(src, tgt, ALPHA, RidgeImputer.Form.DUAL).impute(Fixtures.CTX, news);
             assertClose(primal, dual, 1e-8);
         }
+    }
+
+    /**
+     * A grid fitted together ({@code fitGrid}, then {@code imputeGrid} on the same new rows) gives each alpha the
+     * model and the imputations that fitting and imputing it alone give, bit for bit, in both forms; in the dual form
+     * the Gram matrix of the training rows is computed once for the whole grid (counted through the seam), and once
+     * per fit when the points are fitted one at a time.
+     */
+    @Test
+    void givenAGridOfAlphas_whenFittedTogether_thenEachEqualsItsOwnFitBitForBit_andOneGramMatrixServesThemAll() {
+        for (int p : new int[] {5, 60}) {
+            Rows src = Fixtures.gaussian("s", 25, p, 40 + p);
+            Rows tgt = Fixtures.linearTarget(src, 4, 1.0, 50 + p);
+            Rows news = Fixtures.gaussian("n", 7, p, 60 + p);
+            AtomicInteger grams = new AtomicInteger();
+            RidgeImputer ridge = new RidgeImputer(x -> {
+                grams.incrementAndGet();
+                return SmileMatrices.gram(x);
+            });
+            List<Params> grid = List.of(Params.of("alpha", 0.1), Params.of("alpha", ALPHA), Params.of("alpha", 1e3));
+            List<FitContext> contexts = new ArrayList<>();
+            grid.forEach(g -> contexts.add(Fixtures.CTX));
+            List<ViewImputer.Fitted> together = ridge.fitGrid(contexts, src, tgt, grid, null);
+            List<double[][]> imputed = ridge.imputeGrid(contexts, together, news);
+            assertEquals(p > 25 ? 1 : 0, grams.get(), "p=" + p + ": Gram matrices for the grid");
+            for (int g = 0; g < grid.size(); g++) {
+                double[][] alone = ridge.fit(Fixtures.CTX, src, tgt, grid.get(g)).impute(Fixtures.CTX, news);
+                for (int i = 0; i < alone.length; i++) {
+                    assertArrayEquals(alone[i], imputed.get(g)[i], 0.0, "p=" + p + " " + grid.get(g) + " row " + i);
+                    assertArrayEquals(alone[i], together.get(g).impute(Fixtures.CTX, news)[i], 0.0);
+                }
+            }
+            assertEquals(p > 25 ? 4 : 0, grams.get(), "p=" + p + ": one Gram matrix per fit alone");
+        }
+    }
+
+    /**
+     * Bundles of earlier versions hold the dual form as {@code A = (K + alpha I)^-1 Yc} (kind {@code
+     * imputer-ridge-dual}); such a part is still read and imputes what the augmented QR solution gives (to 1e-9, as
+     * the fitted form), bit for bit before and after the round trip.
+     */
+    @Test
+    void givenTheDualFormOfEarlierBundles_whenReadBack_thenItStillImputesTheRidgeSolution() {
+        Rows src = Fixtures.gaussian("s", 12, 40, 4);
+        Rows tgt = Fixtures.linearTarget(src, 2, 0.5, 5);
+        Rows news = Fixtures.gaussian("n", 5, 40, 6);
+        double[] mx = Centring.columnMeans(src.x(), src.p());
+        double[] my = Centring.columnMeans(tgt.x(), tgt.p());
+        double[][] xc = Centring.centre(src.x(), mx);
+        double[][] k = SmileMatrices.gram(xc);
+        for (int i = 0; i < k.length; i++) {
+            k[i][i] += ALPHA;
+        }
+        FrozenImputers.RidgeDual old = new FrozenImputers.RidgeDual(mx, my, xc,
+                SmileMatrices.solveSpd(k, Centring.centre(tgt.x(), my)));
+        ViewImputer.Fitted back = FrozenImputers.thaw(new FrozenIn("ridge", FrozenOut.of(old)));
+        assertTrue(back instanceof FrozenImputers.RidgeDual, "read as the earlier kind");
+        double[][] before = old.impute(Fixtures.CTX, news);
+        double[][] after = back.impute(Fixtures.CTX, news);
+        for (int i = 0; i < before.length; i++) {
+            assertArrayEquals(before[i], after[i], 0.0);
+        }
+        assertClose(augmentedQrPrediction(src, tgt, news), after, 1e-9);
     }
 }
