@@ -144,6 +144,8 @@ public final class BinnedForest implements ClassifierMethod {
             double[] sorted = new double[n];
             int[] order = new int[n];
             long[] keys = new long[n];
+            long[] spare = new long[n];
+            int[] count = new int[RADIX + 1];
             // columns are copied out of the rows a block at a time, so that each row's stretch of the block is read
             // from memory once rather than once per column (a cache miss per value on wide rows)
             double[][] block = new double[Math.min(p, COLUMN_BLOCK)][n];
@@ -159,7 +161,7 @@ public final class BinnedForest implements ClassifierMethod {
                     }
                 }
                 double[] column = block[inBlock];
-                sortByValue(column, order, keys);
+                sortByValue(column, order, keys, spare, count);
                 for (int k = 0; k < n; k++) {
                     sorted[k] = column[order[k]];
                 }
@@ -183,11 +185,12 @@ public final class BinnedForest implements ClassifierMethod {
         /**
          * Puts into {@code order[0, n)} the positions of {@code value[0, n)} sorted by value ascending. Each value is
          * mapped to a long that orders as the value does, its lowest bits replaced by the position, and the longs
-         * are sorted as primitives (no comparison through an index); values that differ only in those lowest bits
+         * are sorted as primitives (no comparison through an index; by radix from {@link #RADIX_FROM} rows on, on
+         * the bits above the position); values that differ only in those lowest bits
          * may then be out of order, so one insertion pass by the values themselves puts them right (it moves nothing
          * otherwise). Equal values may come in any order: the edges and bins depend on the values only.
          */
-        static void sortByValue(double[] value, int[] order, long[] keys) {
+        static void sortByValue(double[] value, int[] order, long[] keys, long[] spare, int[] count) {
             int n = order.length;
             int shift = 32 - Integer.numberOfLeadingZeros(Math.max(1, n - 1));
             long low = (1L << shift) - 1;
@@ -197,7 +200,11 @@ public final class BinnedForest implements ClassifierMethod {
                 long ordered = bits ^ ((bits >> 63) & Long.MAX_VALUE);
                 keys[i] = (ordered & ~low) | i;
             }
-            Arrays.sort(keys, 0, n);
+            if (n >= RADIX_FROM) {
+                radixSort(keys, spare, count, n, shift);
+            } else {
+                Arrays.sort(keys, 0, n);
+            }
             for (int k = 0; k < n; k++) {
                 order[k] = (int) (keys[k] & low);
             }
@@ -210,6 +217,49 @@ public final class BinnedForest implements ClassifierMethod {
                     at--;
                 }
                 order[at + 1] = o;
+            }
+        }
+
+        /**
+         * Rows from which {@link #sortByValue} sorts by radix rather than by comparison: per column of Gaussian
+         * values, Arrays.sort against {@link #radixSort} took 1.25 / 1.66 us at 64 rows, 2.80 / 2.75 at 128, 4.37 /
+         * 2.69 at 192, 14.8 / 6.8 at 533 and 23.8 / 10.0 at 800 (one core, 2026-12-04).
+         */
+        static final int RADIX_FROM = 128;
+        private static final int RADIX_BITS = 8;
+        private static final int RADIX = 1 << RADIX_BITS;
+
+        /**
+         * Sorts {@code keys[0, n)}, compared as signed longs, by their bits from {@code from} up (a least significant
+         * digit radix sort, one byte per pass, stable: keys equal in those bits keep their order, so with the
+         * position in the bits below {@code from} the result is what sorting the whole keys gives). A digit that all
+         * keys share is skipped. {@code spare} (n long) and {@code count} (257 int) are work arrays.
+         */
+        static void radixSort(long[] keys, long[] spare, int[] count, int n, int from) {
+            long[] a = keys;
+            long[] b = spare;
+            for (int shift = from; shift < 64; shift += RADIX_BITS) {
+                Arrays.fill(count, 0);
+                for (int i = 0; i < n; i++) {
+                    // the sign bit flipped, so that unsigned digits order as the signed keys do
+                    count[(int) (((a[i] ^ Long.MIN_VALUE) >>> shift) & (RADIX - 1)) + 1]++;
+                }
+                if (count[(int) (((a[0] ^ Long.MIN_VALUE) >>> shift) & (RADIX - 1)) + 1] == n) {
+                    continue;
+                }
+                for (int d = 0; d < RADIX; d++) {
+                    count[d + 1] += count[d];
+                }
+                for (int i = 0; i < n; i++) {
+                    long k = a[i];
+                    b[count[(int) (((k ^ Long.MIN_VALUE) >>> shift) & (RADIX - 1))]++] = k;
+                }
+                long[] t = a;
+                a = b;
+                b = t;
+            }
+            if (a != keys) {
+                System.arraycopy(a, 0, keys, 0, n);
             }
         }
 

@@ -288,4 +288,35 @@ class BinnedForestTest {
         }
         assertTrue(checked > 4000, "rows checked: " + checked);
     }
+
+    /**
+     * The radix sort behind binning from {@value BinnedForest.Bins#RADIX_FROM} rows on sorts signed keys by their
+     * bits from {@code from} up, stably, so keys whose lowest {@code from} bits hold their position (as binning makes
+     * them) come out exactly as {@code Arrays.sort} puts them: negative and positive keys, digits all keys share
+     * (skipped), keys equal above the position bits, and both parities of the number of passes (invented keys,
+     * seeded).
+     */
+    @Test
+    void givenSignedKeysWithTheirPositionsInTheLowBits_whenRadixSorted_thenAsArraysSort() {
+        java.util.SplittableRandom rnd = new java.util.SplittableRandom(23);
+        for (int n : new int[] {256, 300, 1000, 4096}) {
+            int from = 32 - Integer.numberOfLeadingZeros(n - 1);
+            for (int kind = 0; kind < 4; kind++) {
+                long[] keys = new long[n];
+                for (int i = 0; i < n; i++) {
+                    long high = switch (kind) {
+                        case 0 -> rnd.nextLong();
+                        case 1 -> rnd.nextLong(-1000, 1000) << 40; // many digits shared by all keys
+                        case 2 -> rnd.nextInt(3) - 1L << from;    // few distinct values: long runs of equal keys
+                        default -> Double.doubleToRawLongBits(rnd.nextGaussian());
+                    };
+                    keys[i] = (high & -(1L << from)) | i;
+                }
+                long[] expected = keys.clone();
+                java.util.Arrays.sort(expected);
+                BinnedForest.Bins.radixSort(keys, new long[n], new int[257], n, from);
+                org.junit.jupiter.api.Assertions.assertArrayEquals(expected, keys, "n " + n + " kind " + kind);
+            }
+        }
+    }
 }
