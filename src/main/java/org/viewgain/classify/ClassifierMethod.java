@@ -77,6 +77,16 @@ public interface ClassifierMethod {
     }
 
     /**
+     * {@link #fitGrid} with the hints of one pipeline's training ({@link FitHints}): a method may read them to
+     * choose how to compute and add to them; the models are those {@link #fitGrid} gives, up to rounding. The default
+     * ignores them.
+     */
+    default List<Model> fitGrid(List<FitContext> contexts, Rows x, int[] y, int classes, List<Params> grid,
+                                FitHints hints) {
+        return fitGrid(contexts, x, y, classes, grid);
+    }
+
+    /**
      * The predictions of the models one {@link #fitGrid} call returned, for the same rows, in grid order; the same
      * predictions as calling each model's {@link Model#predict}. A method whose prediction work depends only on the
      * rows and the training block (the distances from each row to the support vectors) overrides it to do that work
@@ -98,6 +108,12 @@ public interface ClassifierMethod {
      */
     default Model fitOwned(FitContext ctx, Rows x, int[] y, int classes, Params params) {
         return fit(ctx, x, y, classes, params);
+    }
+
+    /** {@link #fitOwned} with the hints of one pipeline's training, as in {@link #fitGrid(List, Rows, int[], int,
+     * List, FitHints)}; the default ignores them. */
+    default Model fitOwned(FitContext ctx, Rows x, int[] y, int classes, Params params, FitHints hints) {
+        return fitOwned(ctx, x, y, classes, params);
     }
 
     /** A trained model. */

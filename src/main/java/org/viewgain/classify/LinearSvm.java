@@ -386,7 +386,7 @@ public final class LinearSvm implements ClassifierMethod {
 
     @Override
     public Model fit(FitContext ctx, Rows x, int[] y, int classes, Params params) {
-        return fit(ctx, x, y, classes, params, sharedGram(x));
+        return fit(ctx, x, y, classes, params, sharedGram(x), new FitHints());
     }
 
     /**
@@ -395,31 +395,54 @@ public final class LinearSvm implements ClassifierMethod {
      */
     @Override
     public List<Model> fitGrid(List<FitContext> contexts, Rows x, int[] y, int classes, List<Params> grid) {
+        return fitGrid(contexts, x, y, classes, grid, new FitHints());
+    }
+
+    /**
+     * {@link #fitGrid(List, Rows, int[], int, List)}; a grid point whose last fit in {@code hints} needed at least
+     * {@link #switchAfter} passes for these rows (the rent-or-buy rule would move to the Gram matrix) starts on the
+     * Gram matrix at once, and each point's passes are added to the hints.
+     */
+    @Override
+    public List<Model> fitGrid(List<FitContext> contexts, Rows x, int[] y, int classes, List<Params> grid,
+                               FitHints hints) {
         if (contexts.size() != grid.size()) {
             throw new IllegalArgumentException("contexts " + contexts.size() + " != grid points " + grid.size());
         }
         SharedGram gram = sharedGram(x);
         List<Model> out = new java.util.ArrayList<>(grid.size());
         for (int g = 0; g < grid.size(); g++) {
-            out.add(fit(contexts.get(g), x, y, classes, grid.get(g), gram));
+            out.add(fit(contexts.get(g), x, y, classes, grid.get(g), gram, hints));
         }
         return out;
+    }
+
+    @Override
+    public Model fitOwned(FitContext ctx, Rows x, int[] y, int classes, Params params, FitHints hints) {
+        return fit(ctx, x, y, classes, params, sharedGram(x), hints);
     }
 
     private SharedGram sharedGram(Rows x) {
         return x.n() > 0 && x.n() < x.p() ? new SharedGram(x.x(), gramOf) : null;
     }
 
-    private Model fit(FitContext ctx, Rows x, int[] y, int classes, Params params, SharedGram gram) {
+    private Model fit(FitContext ctx, Rows x, int[] y, int classes, Params params, SharedGram gram,
+                      FitHints hints) {
         TrainingLabels.check(method(), x, y, classes);
         int machines = OneAgainstRest.machines(classes);
         Machine[] fitted = new Machine[machines];
+        if (gram != null && hints.passes(params) >= switchAfter(x.n())) {
+            gram.matrix(); // the last fit at this point moved to it: build it before the first pass
+        }
+        int passes = 0;
         for (int m = 0; m < machines; m++) {
             int[] signs = OneAgainstRest.signs(y, classes, m);
             long seed = Seeds.derive(ctx.seed(), "svm-linear", m);
             fitted[m] = solve(x.x(), signs, params.getDouble("C"), params.getDouble("tolerance"),
                     params.getInt("iterations"), seed, gram);
+            passes = Math.max(passes, fitted[m].passes());
         }
+        hints.passes(params, passes);
         double[] b = new double[machines];
         for (int m = 0; m < machines; m++) {
             b[m] = fitted[m].b();

@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import org.viewgain.classify.ClassifierMethod;
+import org.viewgain.classify.FitHints;
 import org.viewgain.classify.Predictions;
 import org.viewgain.cohort.Extractors;
 import org.viewgain.cohort.Rows;
@@ -131,8 +132,10 @@ final class ClassifierStage {
         Point chosen = points.get(0);
         double innerScore = Double.NaN;
         int[] unconverged = {0};
+        // how the inner fits went (e.g. a solver's passes), for the later ones to choose how to compute
+        FitHints hints = new FitHints();
         if (points.size() > 1) {
-            double[] score = innerScores(p, cl, points, base, train, trainRows, yTrain, innerOf, unconverged);
+            double[] score = innerScores(p, cl, points, base, train, trainRows, yTrain, innerOf, unconverged, hints);
             double best = Double.NEGATIVE_INFINITY;
             for (int g = 0; g < points.size(); g++) {
                 if (score[g] > best) {
@@ -160,7 +163,7 @@ final class ClassifierStage {
         // the unit built these rows for this fit alone: the method may release them as it copies them
         List<String> inputNames = in.featureNames();
         FitChain.Fitted model = new FitChain.Fitted(steps,
-                cl.method().fitOwned(ctx, in, yTrain, ex.spec().cohort().groups().size(), chosen.params()),
+                cl.method().fitOwned(ctx, in, yTrain, ex.spec().cohort().groups().size(), chosen.params(), hints),
                 inputNames);
         if (!model.model().converged()) {
             unconverged[0]++;
@@ -173,7 +176,8 @@ final class ClassifierStage {
      * number of fits that did not converge to {@code unconverged[0]}.
      */
     private double[] innerScores(Pipeline p, Resolved.Classifier cl, List<Point> points, FitContext base,
-                                 int[] train, Rows trainRows, int[] yTrain, int[] innerOf, int[] unconverged) {
+                                 int[] train, Rows trainRows, int[] yTrain, int[] innerOf, int[] unconverged,
+                                 FitHints hints) {
         int k = ex.spec().validation().innerFolds();
         int classes = ex.spec().cohort().groups().size();
         int n = train.length;
@@ -234,7 +238,8 @@ final class ClassifierStage {
                             "classify", base.permutation(), base.repeat(), base.outerFold(), j, p.label()))));
                     grid.add(points.get(g).params());
                 }
-                List<ClassifierMethod.Model> trained = cl.method().fitGrid(contexts, fitIn, yFit, classes, grid);
+                List<ClassifierMethod.Model> trained = cl.method().fitGrid(contexts, fitIn, yFit, classes, grid,
+                        hints);
                 for (ClassifierMethod.Model model : trained) {
                     if (!model.converged()) {
                         unconverged[0]++;

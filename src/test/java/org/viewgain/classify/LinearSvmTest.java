@@ -338,6 +338,54 @@ class LinearSvmTest {
      * Two training sets as {rows, signs}: the first 120 rows of breast-cancer-wisconsin (Wolberg et al. 1995),
      * standardized, and 64 x 441 invented Gaussian rows shifted by 0.3 on the first 20 columns by class.
      */
+    /**
+     * Hints from the earlier fits of a pipeline's training ({@link FitHints}): a grid point whose last fit needed at
+     * least {@link LinearSvm#switchAfter} passes gets the Gram matrix before its first pass, and its model decides as
+     * without hints (to 1e-9); a point without such a hint builds none before the switch, so a fit that converges
+     * first builds none; each fit leaves its passes in the hints (wide invented rows; two classes).
+     */
+    @Test
+    void givenHintsOfAFitPastTheSwitch_whenThePointIsFittedAgain_thenTheGramMatrixComesFirstAndTheModelIsTheSame() {
+        double[][] x = (double[][]) wdbcAndWide(8)[1][0];
+        int[] signs = (int[]) wdbcAndWide(8)[1][1];
+        int[] y = new int[signs.length];
+        java.util.List<String> ids = new java.util.ArrayList<>();
+        for (int i = 0; i < y.length; i++) {
+            y[i] = signs[i] > 0 ? 1 : 0;
+            ids.add("s" + i);
+        }
+        java.util.List<String> names = new java.util.ArrayList<>();
+        for (int j = 0; j < x[0].length; j++) {
+            names.add("c" + j);
+        }
+        org.viewgain.cohort.Rows rows = new org.viewgain.cohort.Rows(ids, x, names);
+        int[] grams = {0};
+        LinearSvm svm = new LinearSvm(in -> {
+            grams[0]++;
+            return LinearSvm.gram(in);
+        });
+        FitContext ctx = new FitContext(0, 0, 0, FitContext.WHOLE, FitContext.Role.FINAL, 3L);
+        org.viewgain.spec.Params quick = svm.resolve(java.util.Map.of("C", 0.0001));
+        ClassifierMethod.Model plain = svm.fit(ctx, rows, y, 2, quick);
+        int passes = LinearSvm.solve(x, signs, 0.0001, 0.1, 1000, 0).passes();
+        assertTrue(passes < LinearSvm.switchAfter(x.length), "converges before the switch: " + passes);
+        assertEquals(0, grams[0], "no hint, converged first: no Gram matrix");
+
+        FitHints hints = new FitHints();
+        hints.passes(quick, LinearSvm.switchAfter(x.length));
+        ClassifierMethod.Model hinted = svm.fitOwned(ctx, rows, y, 2, quick, hints);
+        assertEquals(1, grams[0], "the hint builds the Gram matrix before the first pass");
+        Predictions a = plain.predict(rows);
+        Predictions b = hinted.predict(rows);
+        for (int i = 0; i < y.length; i++) {
+            assertArrayEquals(a.scores()[i], b.scores()[i], 1e-9, "subject " + i);
+        }
+        assertTrue(hints.passes(quick) > 0 && hints.passes(quick) < LinearSvm.switchAfter(x.length),
+                "the fit left its own passes: " + hints.passes(quick));
+        svm.fitGrid(java.util.List.of(ctx), rows, y, 2, java.util.List.of(quick), hints);
+        assertEquals(1, grams[0], "its hint now says it converges first: no Gram matrix");
+    }
+
     private static Object[][] wdbcAndWide(long seed) {
         ReferenceTable cancer = ReferenceTable.load("breast-cancer-wisconsin.csv").standardized();
         double[][] wdbc = java.util.Arrays.copyOf(cancer.rows().x(), 120);
