@@ -1,8 +1,8 @@
 #!/usr/bin/env bash
 # Issue 12's cases for an older build and this one, alternating in one sitting, each run as its own launcher ran
 # it (the old one with the JVM's default collector unless OLD_OPTS says otherwise, and OLD_ENV as its environment;
-# this one with the serial collector, as ./viewgain does on up to 4 processors, and the C library settings
-# ./viewgain exports). One markdown row per run.
+# this one with the serial collector, as ./viewgain does on up to 4 processors, the C library settings ./viewgain
+# exports and its transparent huge pages where the kernel gives them on request). One markdown row per run.
 #   bench/compare-aims.sh OLD_ROOT [CASES]      CASES default: "demo demo chance nested apply"
 # chance is demo-chance.yaml with 49 permutations and no early stop; nested is bench/specs/nested-160x35.yaml;
 # apply needs the bundle and cohort of bench/apply.sh under bench/work/. HEAP_OPTS (e.g. -Xmx64m) is given to both
@@ -17,6 +17,9 @@ trap 'rm -rf "$tmp"' EXIT
 (cd "$root" && mvn -q -o -B -Dmaven.test.skip=true package)
 # the malloc settings this build's launcher exports (GLIBC_TUNABLES, see ./viewgain)
 tunables="$(sed -n 's/^export GLIBC_TUNABLES="\${GLIBC_TUNABLES:-\(.*\)}"$/\1/p' "$root/viewgain")"
+# and the huge pages it asks for where the kernel gives them on request (see ./viewgain)
+thp=""
+grep -q '\[madvise\]' /sys/kernel/mm/transparent_hugepage/enabled 2>/dev/null && thp="-XX:+UseTransparentHugePages"
 sed -e "s#\.\./demo-data#$root/demo-data#g" "$root/experiment-specs/demo.yaml" > "$tmp/demo.yaml"
 sed -e "s#\.\./demo-data#$root/demo-data#g" -e "s/permutations: [0-9]*/permutations: 49/" \
   -e "s/early-stop: [0-9]*/early-stop: 0/" "$root/experiment-specs/demo-chance.yaml" > "$tmp/chance.yaml"
@@ -31,7 +34,7 @@ for c in $cases; do
   for which in old new; do
     if [ "$which" = old ]; then cp="$old/target/viewgain.jar:$old/target/lib/*"; opts="${OLD_OPTS:-}"
       environment=(env ${OLD_ENV:-})
-    else cp="$root/target/viewgain.jar:$root/target/lib/*"; opts="-XX:+UseSerialGC"
+    else cp="$root/target/viewgain.jar:$root/target/lib/*"; opts="-XX:+UseSerialGC $thp"
       environment=(env ${tunables:+GLIBC_TUNABLES=$tunables}); fi
     case "$c" in
       apply) args=(apply "$bundle" "$tmp/cohort.yaml" --out "$tmp/out") ;;
