@@ -68,7 +68,7 @@ public record ParamDef(String name, Kind kind, double min, double max, List<Stri
                         return (int) v;
                     }
                 }
-                throw new IllegalArgumentException("expected a whole number from " + fmt(min) + " to " + fmt(max));
+                throw new IllegalArgumentException("expected a whole number " + range(min, max));
             }
             case NUMBER -> {
                 if (raw instanceof Number n) {
@@ -77,7 +77,7 @@ public record ParamDef(String name, Kind kind, double min, double max, List<Stri
                         return v;
                     }
                 }
-                throw new IllegalArgumentException("expected a number from " + fmt(min) + " to " + fmt(max));
+                throw new IllegalArgumentException("expected a number " + range(min, max));
             }
             case CHOICE -> {
                 if (raw instanceof String s && choices.contains(s)) {
@@ -94,7 +94,7 @@ public record ParamDef(String name, Kind kind, double min, double max, List<Stri
                 } else if (raw instanceof String s && choices.contains(s)) {
                     return s;
                 }
-                throw new IllegalArgumentException("expected a number from " + fmt(min) + " to " + fmt(max)
+                throw new IllegalArgumentException("expected a number " + range(min, max)
                         + " or one of " + String.join(", ", choices));
             }
             default -> {
@@ -106,10 +106,16 @@ public record ParamDef(String name, Kind kind, double min, double max, List<Stri
         }
     }
 
-    static String fmt(double v) {
-        if (v == Double.MAX_VALUE || v == Integer.MAX_VALUE) {
-            return "any";
+    /** The allowed range in words: "from 1 to 100", "of at least 1.0E-12" (no upper bound), "above 0". */
+    static String range(double min, double max) {
+        boolean open = max == Double.MAX_VALUE || max == Integer.MAX_VALUE;
+        if (min == Double.MIN_VALUE) {
+            return open ? "above 0" : "above 0 and at most " + fmt(max);
         }
+        return open ? "of at least " + fmt(min) : "from " + fmt(min) + " to " + fmt(max);
+    }
+
+    static String fmt(double v) {
         if (v == Math.rint(v) && Math.abs(v) < 1e15) {
             return String.valueOf((long) v);
         }
