@@ -110,8 +110,10 @@ public interface ClassifierMethod {
         return fit(ctx, x, y, classes, params);
     }
 
-    /** {@link #fitOwned} with the hints of one pipeline's training, as in {@link #fitGrid(List, Rows, int[], int,
-     * List, FitHints)}; the default ignores them. */
+    /**
+     * {@link #fitOwned} with the hints of one pipeline's training, as in {@link #fitGrid(List, Rows, int[], int, List,
+     * FitHints)}; the default ignores them.
+     */
     default Model fitOwned(FitContext ctx, Rows x, int[] y, int classes, Params params, FitHints hints) {
         return fitOwned(ctx, x, y, classes, params);
     }

@@ -26,7 +26,9 @@ import org.viewgain.spec.Params;
  * <p>Where the training rows are fewer than their features, a fit that has not converged after {@link #switchAfter}
  * passes goes on with the same steps on the rows' Gram matrix (a step then costs n instead of p), computed once per
  * set of training rows and shared by every later machine and grid point on them ({@link SharedGram}); results
- * differ from the primal solver's by rounding only.
+ * differ from the primal solver's by rounding only. With {@link FitHints} from the earlier fits of the same
+ * pipeline's training, a grid point whose last fit needed at least {@link #switchAfter} passes starts on the Gram
+ * matrix at once.
  *
  * <p>Two classes: one machine, class 1 on the positive side; more: one machine per class against the rest. Scores
  * are decision values {@code w.x + b} (for two classes {@code scores[i][1]} is the value and {@code scores[i][0]} its
@@ -432,7 +434,7 @@ public final class LinearSvm implements ClassifierMethod {
         int machines = OneAgainstRest.machines(classes);
         Machine[] fitted = new Machine[machines];
         if (gram != null && hints.passes(params) >= switchAfter(x.n())) {
-            gram.matrix(); // the last fit at this point moved to it: build it before the first pass
+            gram.matrix(); // the last fit at this point needed the switch: build the matrix before the first pass
         }
         int passes = 0;
         for (int m = 0; m < machines; m++) {
