@@ -250,20 +250,9 @@ class LinearSvmTest {
                 x[i][j] = rnd.nextGaussian();
             }
         }
-        java.util.List<String> names = new java.util.ArrayList<>();
-        for (int j = 0; j < x[0].length; j++) {
-            names.add("c" + j);
-        }
-        java.util.List<String> ids = new java.util.ArrayList<>();
-        for (int i = 0; i < n; i++) {
-            ids.add("s" + i);
-        }
-        org.viewgain.cohort.Rows rows = new org.viewgain.cohort.Rows(ids, x, names);
+        org.viewgain.cohort.Rows rows = named(x);
         int[] grams = {0};
-        LinearSvm svm = new LinearSvm(rowsIn -> {
-            grams[0]++;
-            return LinearSvm.gram(rowsIn);
-        });
+        LinearSvm svm = counting(grams);
         FitContext ctx = new FitContext(0, 0, 0, FitContext.WHOLE, FitContext.Role.FINAL, 3L);
         java.util.List<org.viewgain.spec.Params> grid = java.util.List.of(svm.resolve(java.util.Map.of("C", 0.001)),
                 svm.resolve(java.util.Map.of("C", 0.1)));
@@ -324,10 +313,7 @@ class LinearSvmTest {
     void givenRowsNotFewerThanFeatures_whenFitted_thenNoGramMatrix() {
         ReferenceTable iris = ReferenceTable.load("iris.csv").standardized();
         int[] grams = {0};
-        LinearSvm svm = new LinearSvm(rows -> {
-            grams[0]++;
-            return LinearSvm.gram(rows);
-        });
+        LinearSvm svm = counting(grams);
         FitContext ctx = new FitContext(0, 0, 0, FitContext.WHOLE, FitContext.Role.FINAL, 3L);
         ClassifierMethod.Model m = svm.fit(ctx, iris.rows(), iris.y(), 3, svm.resolve(java.util.Map.of("C", 10.0)));
         assertTrue(m.predict(iris.rows()).labels().length == iris.y().length);
@@ -349,21 +335,12 @@ class LinearSvmTest {
         double[][] x = (double[][]) wdbcAndWide(8)[1][0];
         int[] signs = (int[]) wdbcAndWide(8)[1][1];
         int[] y = new int[signs.length];
-        java.util.List<String> ids = new java.util.ArrayList<>();
         for (int i = 0; i < y.length; i++) {
             y[i] = signs[i] > 0 ? 1 : 0;
-            ids.add("s" + i);
         }
-        java.util.List<String> names = new java.util.ArrayList<>();
-        for (int j = 0; j < x[0].length; j++) {
-            names.add("c" + j);
-        }
-        org.viewgain.cohort.Rows rows = new org.viewgain.cohort.Rows(ids, x, names);
+        org.viewgain.cohort.Rows rows = named(x);
         int[] grams = {0};
-        LinearSvm svm = new LinearSvm(in -> {
-            grams[0]++;
-            return LinearSvm.gram(in);
-        });
+        LinearSvm svm = counting(grams);
         FitContext ctx = new FitContext(0, 0, 0, FitContext.WHOLE, FitContext.Role.FINAL, 3L);
         org.viewgain.spec.Params quick = svm.resolve(java.util.Map.of("C", 0.0001));
         ClassifierMethod.Model plain = svm.fit(ctx, rows, y, 2, quick);
@@ -384,6 +361,27 @@ class LinearSvmTest {
                 "the fit left its own passes: " + hints.passes(quick));
         svm.fitGrid(java.util.List.of(ctx), rows, y, 2, java.util.List.of(quick), hints);
         assertEquals(1, grams[0], "its hint now says it converges first: no Gram matrix");
+    }
+
+    /** The rows with invented subject ids s0.. and feature names c0... */
+    private static org.viewgain.cohort.Rows named(double[][] x) {
+        java.util.List<String> ids = new java.util.ArrayList<>();
+        for (int i = 0; i < x.length; i++) {
+            ids.add("s" + i);
+        }
+        java.util.List<String> names = new java.util.ArrayList<>();
+        for (int j = 0; j < x[0].length; j++) {
+            names.add("c" + j);
+        }
+        return new org.viewgain.cohort.Rows(ids, x, names);
+    }
+
+    /** The linear SVM with its Gram matrices counted in {@code grams[0]}. */
+    private static LinearSvm counting(int[] grams) {
+        return new LinearSvm(in -> {
+            grams[0]++;
+            return LinearSvm.gram(in);
+        });
     }
 
     private static Object[][] wdbcAndWide(long seed) {
