@@ -14,6 +14,9 @@ import org.viewgain.stats.SmileMatrices;
  * place of p x p; Saunders, Gammerman &amp; Vovk 1998). Both are solved by Cholesky; the dual keeps the inverse of
  * the n x n system, so that imputing costs two products with it instead of a solve with one right side per target
  * feature at fit time. The points of a grid fitted together ({@link #fitGrid}) share the centring and the Gram matrix.
+ * In a run, the dual form reads the products of its centred training rows, and of the rows it imputes with them, from
+ * the run's table of source products ({@link SourceGram}, computed once for every ridge fit of the run) whenever the
+ * rows are the cohort's source views as loaded; otherwise it computes them.
  */
 public final class RidgeImputer implements ViewImputer {
 
@@ -55,6 +58,11 @@ public final class RidgeImputer implements ViewImputer {
         return fit(source, target, params.getDouble("alpha"), Form.AUTO);
     }
 
+    @Override
+    public Fitted fit(FitContext ctx, Rows source, Rows target, Params params, SourceDistances shared) {
+        return fitGrid(List.of(ctx), source, target, List.of(params), shared).get(0);
+    }
+
     /** The fit with a chosen form, for checking that both forms agree. */
     Fitted fit(Rows source, Rows target, double alpha, Form form) {
         return fitAll(source, target, new double[] {alpha}, form).get(0);
@@ -71,7 +79,97 @@ public final class RidgeImputer implements ViewImputer {
         for (int g = 0; g < alphas.length; g++) {
             alphas[g] = grid.get(g).getDouble("alpha");
         }
+        SourceGram products = source.p() > source.n() && shared != null ? shared.products() : null;
+        int[] at = products == null ? null : products.positions(source);
+        if (at != null) {
+            return fitShared(source, target, alphas, products, at);
+        }
         return fitAll(source, target, alphas, Form.AUTO);
+    }
+
+    /**
+     * The dual form with the products of the centred training rows read from the run's table ({@link SourceGram})
+     * instead of computed: the same model up to rounding, without the n^2 p multiply-adds of the Gram matrix or the
+     * m n p of the imputed rows' products.
+     */
+    private List<Fitted> fitShared(Rows source, Rows target, double[] alphas, SourceGram products, int[] at) {
+        Shapes.checkTraining(METHOD, source, target);
+        int n = source.n();
+        double[] my = Centring.columnMeans(target.x(), target.p());
+        double[][] yc = Centring.centre(target.x(), my);
+        double[][] k = products.centred(at);
+        List<Fitted> out = new java.util.ArrayList<>(alphas.length);
+        for (double alpha : alphas) {
+            double[][] ka = new double[n][];
+            for (int i = 0; i < n; i++) {
+                ka[i] = k[i].clone();
+                ka[i][i] += alpha;
+            }
+            out.add(new SharedDual(products, at, source.x(), my, SmileMatrices.inverseSpd(ka), yc));
+        }
+        return out;
+    }
+
+    /**
+     * A dual-form model fitted through the run's table: {@code ((x - mx) Xc') Z Yc + my}, the rows' products with the
+     * training rows read from the table when the rows are the cohort's own source views, computed from the kept
+     * training rows otherwise. It freezes as the {@link FrozenImputers.RidgeDualInverse} it equals.
+     */
+    static final class SharedDual implements Fitted, org.viewgain.frozen.Freezable {
+        private final SourceGram products;
+        private final int[] at;
+        private final double[][] x;
+        private final double[] my;
+        private final double[][] z;
+        private final double[][] yc;
+        private FrozenImputers.RidgeDualInverse whole;
+
+        SharedDual(SourceGram products, int[] at, double[][] x, double[] my, double[][] z, double[][] yc) {
+            this.products = products;
+            this.at = at;
+            this.x = x;
+            this.my = my;
+            this.z = z;
+            this.yc = yc;
+        }
+
+        @Override
+        public double[][] impute(FitContext ctx, Rows rows) {
+            return impute(cross(rows));
+        }
+
+        /** The rows' products with the centred training rows, {@code (x - mx) Xc'}. */
+        double[][] cross(Rows rows) {
+            int[] q = products.positions(rows);
+            return q != null ? products.centredCross(q, at) : inverse().cross(rows);
+        }
+
+        double[][] impute(double[][] cross) {
+            return addMeans(SmileMatrices.times(SmileMatrices.times(cross, z), yc), my);
+        }
+
+        boolean sameTraining(SharedDual other) {
+            return other.products == products && other.at == at;
+        }
+
+        /** The same model with the centred training rows kept (made on first need: a bundle, other rows). */
+        synchronized FrozenImputers.RidgeDualInverse inverse() {
+            if (whole == null) {
+                double[] mx = Centring.columnMeans(x, x[0].length);
+                whole = new FrozenImputers.RidgeDualInverse(mx, my, Centring.centre(x, mx), z, yc);
+            }
+            return whole;
+        }
+
+        @Override
+        public String kind() {
+            return FrozenImputers.RidgeDualInverse.KIND;
+        }
+
+        @Override
+        public void freeze(org.viewgain.frozen.FrozenOut out) {
+            inverse().freeze(out);
+        }
     }
 
     private List<Fitted> fitAll(Rows source, Rows target, double[] alphas, Form form) {
@@ -120,11 +218,20 @@ public final class RidgeImputer implements ViewImputer {
     public List<double[][]> imputeGrid(List<FitContext> contexts, List<Fitted> fitted, Rows source) {
         double[][] cross = null;
         FrozenImputers.RidgeDualInverse first = null;
+        SharedDual firstShared = null;
         List<double[][]> out = new java.util.ArrayList<>(fitted.size());
         for (int g = 0; g < fitted.size(); g++) {
-            if (fitted.get(g) instanceof FrozenImputers.RidgeDualInverse d) {
+            if (fitted.get(g) instanceof SharedDual d) {
+                if (firstShared == null || !d.sameTraining(firstShared)) {
+                    firstShared = d;
+                    first = null;
+                    cross = d.cross(source);
+                }
+                out.add(d.impute(cross));
+            } else if (fitted.get(g) instanceof FrozenImputers.RidgeDualInverse d) {
                 if (first == null || d.xc() != first.xc() || d.mx() != first.mx()) {
                     first = d;
+                    firstShared = null;
                     cross = d.cross(source);
                 }
                 out.add(d.impute(cross));

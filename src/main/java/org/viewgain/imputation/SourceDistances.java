@@ -23,6 +23,8 @@ import java.util.function.Function;
  * {@link #BUDGET_BYTES} gets no table ({@link #of} returns null) and its fits compute their own distances.
  * Rows are computed in blocks of queries against column chunks of the training subjects' views, so each view is read
  * once per block rather than once per query (the fit's own loop reads every training view for every query).
+ *
+ * <p>The same subjects' inner products, which {@code ridge} reads, come with it ({@link #products}).
  */
 public final class SourceDistances {
     /** The largest table kept: 256 MiB, e.g. 5,790 subjects all with a target. */
@@ -37,6 +39,8 @@ public final class SourceDistances {
     private final Function<String, float[]> view;
     private final AtomicReferenceArray<double[]> rows;
     private final AtomicLong computed = new AtomicLong();
+    private SourceGram products;
+    private boolean productsMade;
 
     private SourceDistances(List<String> subjects, List<String> trainable, Function<String, float[]> view) {
         this.rowIds = List.copyOf(subjects);
@@ -78,21 +82,26 @@ public final class SourceDistances {
 
     private boolean holds(org.viewgain.cohort.Rows rows) {
         for (int r = 0; r < rows.n(); r++) {
-            if (!rowOf.containsKey(rows.ids().get(r))) {
+            String id = rows.ids().get(r);
+            if (!rowOf.containsKey(id) || !SourceGram.sameValues(rows.x()[r], view.apply(id))) {
                 return false;
-            }
-            float[] v = view.apply(rows.ids().get(r));
-            double[] x = rows.x()[r];
-            if (v.length != x.length) {
-                return false;
-            }
-            for (int j = 0; j < v.length; j++) {
-                if (x[j] != v[j]) {
-                    return false;
-                }
             }
         }
         return true;
+    }
+
+    /**
+     * The run's inner products between the same subjects' source views, for {@code ridge} ({@link SourceGram}; made
+     * on first use, computed on a fit's first request), or null above its budget.
+     */
+    public SourceGram products() {
+        synchronized (rows) {
+            if (!productsMade) {
+                productsMade = true;
+                products = SourceGram.of(rowIds, view);
+            }
+            return products;
+        }
     }
 
     /**

@@ -11,8 +11,8 @@ import smile.math.matrix.Matrix;
 
 /**
  * The one place outside the classifier adapters that calls Smile's dense linear algebra (native BLAS/LAPACK through
- * Smile 3.1.1), so the imputers, the linear SVM and the separation test work on plain {@code double[][]} row-major
- * arrays.
+ * Smile 3.1.1, and OpenBLAS's {@code dsyrk}, which Smile's interface lacks, through the binding Smile loads), so the
+ * imputers, the linear SVM and the separation test work on plain {@code double[][]} row-major arrays.
  */
 public final class SmileMatrices {
     static {
@@ -97,6 +97,40 @@ public final class SmileMatrices {
             }
             BLAS.engine.gemm(Layout.ROW_MAJOR, Transpose.NO_TRANSPOSE, Transpose.TRANSPOSE, n, n, w, 1.0, block, w,
                     block, w, 1.0, g, n);
+        }
+        double[][] out = new double[n][n];
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j <= i; j++) {
+                out[i][j] = g[i * n + j];
+                out[j][i] = g[i * n + j];
+            }
+        }
+        return out;
+    }
+
+    /** Writes {@code width} values of row {@code row}, from column {@code from}, into {@code dest} at {@code at}. */
+    @FunctionalInterface
+    public interface RowBlock {
+        void copy(int row, int from, int width, double[] dest, int at);
+    }
+
+    /**
+     * The Gram matrix of n rows of width p that {@code rows} supplies a block of columns at a time (so that no copy of
+     * all the rows is made, and rows stored in another form can be widened or shifted as they are copied), by native
+     * BLAS's symmetric rank-k update ({@code dsyrk}, half the multiply-adds of {@link #rowGram}); the lower triangle
+     * is mirrored, so the result is exactly symmetric. Sums in BLAS's order; the same on every run on one machine.
+     */
+    public static double[][] lowerGram(int n, int p, int block, RowBlock rows) {
+        double[] g = new double[n * n];
+        double[] buf = new double[n * Math.min(p, block)];
+        for (int c0 = 0; c0 < p; c0 += block) {
+            int w = Math.min(block, p - c0);
+            for (int i = 0; i < n; i++) {
+                rows.copy(i, c0, w, buf, i * w);
+            }
+            org.bytedeco.openblas.global.openblas.cblas_dsyrk(org.bytedeco.openblas.global.openblas.CblasRowMajor,
+                    org.bytedeco.openblas.global.openblas.CblasLower,
+                    org.bytedeco.openblas.global.openblas.CblasNoTrans, n, w, 1.0, buf, w, 1.0, g, n);
         }
         double[][] out = new double[n][n];
         for (int i = 0; i < n; i++) {

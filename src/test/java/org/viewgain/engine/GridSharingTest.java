@@ -44,4 +44,29 @@ class GridSharingTest {
         assertEquals(2 * 4, rec.fits.stream().filter(f -> f.kind().equals("classifier")
                 && f.ctx().role() == FitContext.Role.FINAL).count());
     }
+
+    /**
+     * The ridge imputer's table of source products ({@link org.viewgain.imputation.SourceGram}) is computed once per
+     * run, although ridge is fitted in the dual form in every outer fold, its cross-fits, the nested fits behind the
+     * classifier's tuning and every permutation's re-drawn plan (that those fits read it is checked in
+     * RidgeImputerTest); counted, not timed.
+     */
+    @Test
+    void givenRidgeInTheDualForm_whenRunWithTuningAndPermutations_thenTheSourceProductsAreComputedOnce() {
+        TestCohorts.synthetic(dir, 40, 60, 6, 1.0, 0.3, 3); // 60 source columns, more than any training set
+        String body = """
+                imputers:
+                  - { name: ridge, method: ridge, grid: { alpha: [1, 10] } }
+                feature-sets: [source, source+imputed]
+                classifiers:
+                  - { name: lr, method: logistic, grid: { lambda: [0.1, 10] } }
+                validation: { outer: { folds: 4, repeats: 1 }, inner: { folds: 3 } }
+                significance: { permutations: 3, early-stop: 0, bootstrap: 0 }
+                """;
+        Experiment ex = Setup.prepare(SpecLoader.load(TestCohorts.spec(dir, body)));
+        new Runner(ex, 2, Progress.NONE).run();
+        org.viewgain.imputation.SourceGram products = ex.data().sourceDistances().products();
+        assertEquals(1, products.computed(), "one table for the whole run");
+        assertTrue(products.reads() >= 4 * (4 + 3 * 4), "read by the outer and nested fits: " + products.reads());
+    }
 }

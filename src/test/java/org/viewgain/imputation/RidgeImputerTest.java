@@ -167,4 +167,56 @@ class RidgeImputerTest {
         }
         assertClose(augmentedQrPrediction(src, tgt, news), after, 1e-9);
     }
+
+    /**
+     * Ridge through the run's table of source products ({@link SourceGram}): the dual-form models of a grid impute
+     * what the augmented QR solution gives (to 1e-9, as the fitted form) for rows in the table and for rows outside
+     * it, what ridge without the table imputes (to 1e-9), the grid's imputations are each model's own bit for bit,
+     * and a model frozen into a bundle reads back as the earlier dual kind with the same imputations. The views are
+     * single precision, as a run stores them, and sit far from the origin (mean 30).
+     */
+    @Test
+    void givenTheRunsTableOfSourceProducts_whenRidgeFitsAGrid_thenItImputesTheRidgeSolution() {
+        Rows raw = Fixtures.gaussian("s", 30, 80, 70);
+        java.util.Map<String, float[]> views = new java.util.HashMap<>();
+        double[][] x = new double[raw.n()][raw.p()];
+        for (int i = 0; i < raw.n(); i++) {
+            float[] v = new float[raw.p()];
+            for (int j = 0; j < raw.p(); j++) {
+                v[j] = (float) (30 + raw.x()[i][j]);
+                x[i][j] = v[j];
+            }
+            views.put(raw.ids().get(i), v);
+        }
+        Rows all = new Rows(raw.ids(), x, raw.featureNames());
+        int[] trainAt = java.util.stream.IntStream.range(0, 30).filter(i -> i % 3 != 0).toArray();
+        Rows src = all.select(trainAt);
+        Rows tgt = Fixtures.linearTarget(src, 3, 0.5, 71);
+        Rows held = all.select(new int[] {0, 3, 6, 9, 1});
+        Rows news = Fixtures.gaussian("n", 4, 80, 72);
+        SourceDistances shared = SourceDistances.of(all.ids(), src.ids(), views::get);
+        RidgeImputer ridge = new RidgeImputer();
+        List<Params> grid = List.of(Params.of("alpha", ALPHA), Params.of("alpha", 300.0));
+        List<FitContext> contexts = List.of(Fixtures.CTX, Fixtures.CTX);
+        List<ViewImputer.Fitted> viaTable = ridge.fitGrid(contexts, src, tgt, grid, shared);
+        List<ViewImputer.Fitted> own = ridge.fitGrid(contexts, src, tgt, grid, null);
+        assertTrue(viaTable.get(0) instanceof RidgeImputer.SharedDual, "fitted through the table");
+        assertEquals(1, shared.products().computed(), "one table for the grid");
+        for (Rows rows : List.of(held, news)) {
+            List<double[][]> imputed = ridge.imputeGrid(contexts, viaTable, rows);
+            for (int g = 0; g < grid.size(); g++) {
+                double[][] alone = viaTable.get(g).impute(Fixtures.CTX, rows);
+                for (int i = 0; i < alone.length; i++) {
+                    assertArrayEquals(alone[i], imputed.get(g)[i], 0.0, grid.get(g) + " row " + i);
+                }
+                assertClose(own.get(g).impute(Fixtures.CTX, rows), alone, 1e-9);
+            }
+            assertClose(augmentedQrPrediction(src, tgt, rows), imputed.get(0), 1e-9);
+        }
+        ViewImputer.Fitted back = FrozenImputers.thaw(new FrozenIn("ridge", FrozenOut.of(
+                (org.viewgain.frozen.Freezable) viaTable.get(0))));
+        assertTrue(back instanceof FrozenImputers.RidgeDualInverse, "frozen as the dual kind it equals");
+        assertClose(viaTable.get(0).impute(Fixtures.CTX, held), back.impute(Fixtures.CTX, held), 1e-9);
+        assertEquals(1, shared.products().computed(), "still one table");
+    }
 }
