@@ -12,22 +12,26 @@ import org.viewgain.folds.FoldPlan;
  *                           run's imputations, read only), for {@link Separation}; empty when the run did not compute
  *                           them (e.g. a merge of shards), in which case they are recomputed
  * @param availability       the levels of the spec's availability curve, the full data last (empty without one)
+ * @param separation         the separation test's rows when the run computed them alongside its units, null when
+ *                           {@link Separation#of} computes them (a merge of shards, a resumed run)
  */
 public record RunResults(Experiment experiment, FoldPlan plan, List<Prediction> predictions,
                          List<Choice> choices, List<ImputationRow> imputation, List<EdgeErrors> edgeErrors,
                          List<PermutationResult> permutations, List<Importance.Fold> importance,
-                         Map<String, float[][]> firstRepeatImputed, List<AvailabilityLevel> availability) {
+                         Map<String, float[][]> firstRepeatImputed, List<AvailabilityLevel> availability,
+                         List<Separation.Row> separation) {
     /** Results without an availability curve. */
     public RunResults(Experiment experiment, FoldPlan plan, List<Prediction> predictions, List<Choice> choices,
                       List<ImputationRow> imputation, List<EdgeErrors> edgeErrors,
                       List<PermutationResult> permutations, List<Importance.Fold> importance,
                       Map<String, float[][]> firstRepeatImputed) {
         this(experiment, plan, predictions, choices, imputation, edgeErrors, permutations, importance,
-                firstRepeatImputed, List.of());
+                firstRepeatImputed, List.of(), null);
     }
 
     public RunResults {
         availability = List.copyOf(availability);
+        separation = separation == null ? null : List.copyOf(separation);
         firstRepeatImputed = Map.copyOf(firstRepeatImputed);
         predictions = List.copyOf(predictions);
         choices = List.copyOf(choices);
@@ -40,13 +44,19 @@ public record RunResults(Experiment experiment, FoldPlan plan, List<Prediction> 
     /** The same results with the permutation tests added. */
     public RunResults withPermutations(List<PermutationResult> perms) {
         return new RunResults(experiment, plan, predictions, choices, imputation, edgeErrors, perms, importance,
-                firstRepeatImputed, availability);
+                firstRepeatImputed, availability, separation);
     }
 
     /** The same results with the levels of an availability curve. */
     public RunResults withAvailability(List<AvailabilityLevel> levels) {
         return new RunResults(experiment, plan, predictions, choices, imputation, edgeErrors, permutations,
-                importance, firstRepeatImputed, levels);
+                importance, firstRepeatImputed, levels, separation);
+    }
+
+    /** The same results with the separation test's rows, computed by the run. */
+    public RunResults withSeparation(List<Separation.Row> rows) {
+        return new RunResults(experiment, plan, predictions, choices, imputation, edgeErrors, permutations,
+                importance, firstRepeatImputed, availability, rows);
     }
 
     /**

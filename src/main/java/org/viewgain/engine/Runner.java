@@ -9,9 +9,6 @@ import java.util.TreeMap;
 import java.util.TreeSet;
 import java.util.concurrent.Callable;
 import java.util.concurrent.ConcurrentHashMap;
-import java.util.concurrent.ExecutionException;
-import java.util.concurrent.ExecutorService;
-import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
 import java.util.concurrent.atomic.AtomicLong;
 import org.viewgain.folds.FoldPlan;
@@ -19,10 +16,12 @@ import org.viewgain.folds.FoldPlan;
 /**
  * Runs an experiment as independent work units on a thread pool. Phase one fits every imputer in every outer fold
  * (label-free work, done once and shared by all pipelines); phase two trains and tests every pipeline in every outer
- * fold; phase three, when the spec asks for it, runs the label permutation test (see {@link Permutations}). Results are
- * gathered in unit order, so they do not depend on the number of threads. With a {@link Journal} every finished
- * unit of phases two and three is journaled and units already there are skipped, so a killed run resumes where it
- * stopped; with a {@link Shard} only a share of the units runs (for a cluster job array).
+ * fold; the two share one queue, a pipeline unit starting as soon as the imputations it reads are done (see
+ * {@link UnitPool}); phase three, when the spec asks for it, runs the label permutation test (see
+ * {@link Permutations}). Results are gathered in unit order, so they depend neither on the number of threads nor on
+ * the order units ran in. With a {@link Journal} every finished unit of phases two and three is journaled and units
+ * already there are skipped, so a killed run resumes where it stopped; with a {@link Shard} only a share of the units
+ * runs (for a cluster job array).
  */
 public final class Runner {
     private final Experiment ex;
@@ -228,11 +227,7 @@ public final class Runner {
         List<WorkUnit> mine = units(shard);
         // a shard counts its own share; a whole run also counts the permutations it plans
         Counter counter = new Counter(shard == null ? units() : mine.size());
-        ExecutorService pool = Executors.newFixedThreadPool(threads, r -> {
-            Thread t = new Thread(r, "viewgain-worker");
-            t.setDaemon(true);
-            return t;
-        });
+        UnitPool pool = new UnitPool(threads);
         try {
             State state = new State();
             state.innerOf = new int[state.folds.size()][];
@@ -253,30 +248,13 @@ public final class Runner {
                     needed.add(c.slot());
                 }
             }
-            // phase one: imputations, label-free, recomputed for the folds still to run (never journaled)
+            // phases one and two: imputations (label-free, recomputed for the folds still to run, never journaled)
+            // and pipelines, on one queue
             if (allSlots) {
                 needed.clear();
                 state.folds.forEach(of -> needed.add(of.slot()));
             }
-            impute(state, needed, pool, shard, counter, true);
-            // phase two: pipelines
-            ClassifierStage stage = new ClassifierStage(ex);
-            List<Callable<Void>> tasks = new ArrayList<>();
-            for (WorkUnit u : mine) {
-                if (!(u instanceof WorkUnit.Classifier c) || c.curve() || known(c) != null) {
-                    continue;
-                }
-                OuterFold of = state.folds.get(c.slot());
-                Pipeline p = ex.pipelines().get(c.pipeline());
-                int m = p.featureSet().needsImputer() ? state.imputerIndex(p.imputer()) : -1;
-                tasks.add(() -> {
-                    record(c, stage.run(p, 0, plan, of.repeat(), of.fold(), state.innerOf[of.slot()],
-                            m < 0 ? null : state.imputed[of.slot()][m], ex.data().y()));
-                    counter.done();
-                    return null;
-                });
-            }
-            invokeAll(pool, tasks);
+            List<Future<Separation.Row>> separation = foldUnits(state, mine, needed, pool, shard, counter);
             // the availability curve: its own units, level by level, on the same folds
             curve.run(mine, state.innerOf, host(pool, counter));
             runFinals(mine, pool, counter);
@@ -305,16 +283,19 @@ public final class Runner {
                 for (List<Callable<Void>> tasksOfK : byPermutation.values()) {
                     batch.addAll(tasksOfK);
                     if (++inBatch == per) {
-                        invokeAll(pool, batch);
+                        pool.invokeInOrder(batch);
                         perm.release();
                         batch.clear();
                         inBatch = 0;
                     }
                 }
-                invokeAll(pool, batch);
+                pool.invokeInOrder(batch);
                 return null;
             }
             RunResults res = collect(state).withAvailability(curve.collect(host(pool, counter)));
+            if (separation != null) {
+                res = res.withSeparation(UnitPool.await(separation));
+            }
             if (ex.spec().finalPipelines()) {
                 finals = collectFinals(pool);
             }
@@ -326,7 +307,7 @@ public final class Runner {
                 for (Pipeline p : ex.pipelines()) {
                     observed.add(Evaluation.pooled(ex, plan.repeats(), r -> Evaluation.select(run, p, r, -1), metric));
                 }
-                res = res.withPermutations(perm.run(observed, t -> invokeAll(pool, t), counter));
+                res = res.withPermutations(perm.run(observed, t -> pool.invokeInOrder(t), counter));
             }
             return res;
         } finally {
@@ -340,7 +321,7 @@ public final class Runner {
     }
 
     /** Runs the final units of {@code mine} not journaled yet (their imputers fitted first, once each). */
-    private void runFinals(List<WorkUnit> mine, ExecutorService pool, Counter counter) {
+    private void runFinals(List<WorkUnit> mine, UnitPool pool, Counter counter) {
         FinalStage stage = new FinalStage(ex);
         List<Integer> todo = new ArrayList<>();
         for (WorkUnit u : mine) {
@@ -369,10 +350,10 @@ public final class Runner {
                 return null;
             });
         }
-        invokeAll(pool, tasks);
+        pool.invokeInOrder(tasks);
     }
 
-    private void fitFinalImputers(Set<String> names, ExecutorService pool) {
+    private void fitFinalImputers(Set<String> names, UnitPool pool) {
         FinalStage stage = new FinalStage(ex);
         List<Callable<Void>> tasks = new ArrayList<>();
         for (String name : names) {
@@ -383,10 +364,10 @@ public final class Runner {
                 });
             }
         }
-        invokeAll(pool, tasks);
+        pool.invokeInOrder(tasks);
     }
 
-    private FinalPipelines collectFinals(ExecutorService pool) {
+    private FinalPipelines collectFinals(UnitPool pool) {
         Set<String> used = new TreeSet<>();
         ex.pipelines().stream().filter(p -> p.featureSet().needsImputer()).forEach(p -> used.add(p.imputer()));
         fitFinalImputers(used, pool);
@@ -418,13 +399,19 @@ public final class Runner {
      * Fits the imputers in the given folds unless done already, recording the summaries this run owns (and counting
      * them as finished units when {@code counted}: a unit journaled earlier was counted when the run started).
      */
-    private void impute(State state, Set<Integer> slots, ExecutorService pool, Shard shard, Counter counter,
+    private void impute(State state, Set<Integer> slots, UnitPool pool, Shard shard, Counter counter,
                         boolean counted) {
+        pool.invokeInOrder(new ArrayList<>(imputations(state, slots, shard, counter, counted).values()));
+    }
+
+    /** The imputation tasks of {@link #impute}, by slot and imputer, in listing order (none without imputed sets). */
+    private Map<WorkUnit.Imputation, Callable<Void>> imputations(State state, Set<Integer> slots, Shard shard,
+                                                                Counter counter, boolean counted) {
+        Map<WorkUnit.Imputation, Callable<Void>> tasks = new java.util.LinkedHashMap<>();
         if (!anyImputed()) {
-            return;
+            return tasks;
         }
         ImputationStage stage = new ImputationStage(ex);
-        List<Callable<Void>> tasks = new ArrayList<>();
         for (int slot : slots) {
             OuterFold of = state.folds.get(slot);
             for (int m = 0; m < ex.imputers().size(); m++) {
@@ -434,7 +421,7 @@ public final class Runner {
                 final int mm = m;
                 WorkUnit.Imputation unit = WorkUnit.Imputation.of(slot, m);
                 boolean owned = shard == null || shard.owns((long) slot * ex.imputers().size() + m);
-                tasks.add(() -> {
+                tasks.put(unit, () -> {
                     ImputedFold fi = stage.run(ex.imputers().get(mm), 0, ex.plan(), of.repeat(), of.fold());
                     state.imputed[slot][mm] = fi;
                     if (owned && known(unit) == null) {
@@ -447,10 +434,74 @@ public final class Runner {
                 });
             }
         }
-        invokeAll(pool, tasks);
+        return tasks;
     }
 
-    private AvailabilityRun.Host host(ExecutorService pool, Counter counter) {
+    /**
+     * Phases one and two on one queue: the imputations of the folds still to run first, then the pipeline units of
+     * {@code mine} not journaled yet in their listing order; a unit that reads an imputer's imputations of a fold
+     * joins the queue (in its listing place) when they are done, so no thread waits for the slowest imputation. A
+     * whole run also queues the separation test's rows last, once the first repeat's imputations are all done, to
+     * fill threads that would otherwise idle at the end (the last units, the availability curve, the final
+     * pipelines); their futures are returned (null when the rows are left to {@link Separation#of}). Waits for every
+     * imputation and pipeline unit. (Ordering the units costliest first was tried: two memory-bound units of one
+     * kind then ran side by side and took longer; docs/benchmarks.md.)
+     */
+    private List<Future<Separation.Row>> foldUnits(State state, List<WorkUnit> mine, Set<Integer> needed,
+                                                   UnitPool pool, Shard shard, Counter counter) {
+        Map<WorkUnit.Imputation, Callable<Void>> imputations = imputations(state, needed, shard, counter, true);
+        Map<WorkUnit.Imputation, List<UnitPool.Ranked<Void>>> waiting = new java.util.HashMap<>();
+        List<UnitPool.Ranked<Void>> pipelines = new ArrayList<>();
+        ClassifierStage stage = new ClassifierStage(ex);
+        for (WorkUnit u : mine) {
+            if (!(u instanceof WorkUnit.Classifier c) || c.curve() || known(c) != null) {
+                continue;
+            }
+            OuterFold of = state.folds.get(c.slot());
+            Pipeline p = ex.pipelines().get(c.pipeline());
+            int m = p.featureSet().needsImputer() ? state.imputerIndex(p.imputer()) : -1;
+            UnitPool.Ranked<Void> task = pool.ranked(0, () -> {
+                record(c, stage.run(p, 0, ex.plan(), of.repeat(), of.fold(), state.innerOf[of.slot()],
+                        m < 0 ? null : state.imputed[of.slot()][m], ex.data().y()));
+                counter.done();
+                return null;
+            });
+            pipelines.add(task);
+            WorkUnit.Imputation source = m < 0 ? null : WorkUnit.Imputation.of(c.slot(), m);
+            if (source != null && imputations.containsKey(source)) {
+                waiting.computeIfAbsent(source, k -> new ArrayList<>()).add(task);
+            }
+        }
+        List<UnitPool.Ranked<Void>> first = new ArrayList<>();
+        for (Map.Entry<WorkUnit.Imputation, Callable<Void>> e : imputations.entrySet()) {
+            List<UnitPool.Ranked<Void>> then = waiting.getOrDefault(e.getKey(), List.of());
+            first.add(pool.ranked(Double.POSITIVE_INFINITY, () -> {
+                e.getValue().call();
+                then.forEach(pool::execute);
+                return null;
+            }));
+        }
+        first.forEach(pool::execute);
+        Set<UnitPool.Ranked<Void>> queuedLater = new java.util.HashSet<>();
+        waiting.values().forEach(queuedLater::addAll);
+        pipelines.stream().filter(t -> !queuedLater.contains(t)).forEach(pool::execute);
+        UnitPool.await(first);
+        List<Future<Separation.Row>> separation = null;
+        Map<String, float[][]> firstRepeat = firstRepeatImputed(state);
+        if (shard == null && (!anyImputed() || !firstRepeat.isEmpty())) {
+            separation = new ArrayList<>();
+            for (Pipeline p : Separation.pipelines(ex)) {
+                UnitPool.Ranked<Separation.Row> row = pool.ranked(Double.NEGATIVE_INFINITY,
+                        () -> Separation.row(ex, firstRepeat, p));
+                pool.execute(row);
+                separation.add(row);
+            }
+        }
+        UnitPool.await(pipelines);
+        return separation;
+    }
+
+    private AvailabilityRun.Host host(UnitPool pool, Counter counter) {
         return new AvailabilityRun.Host() {
             @Override
             public UnitCodec.ImputerSummary known(WorkUnit.Imputation u) {
@@ -469,7 +520,7 @@ public final class Runner {
 
             @Override
             public void runAll(List<Callable<Void>> tasks) {
-                invokeAll(pool, tasks);
+                pool.invokeInOrder(tasks);
             }
 
             @Override
@@ -550,33 +601,6 @@ public final class Runner {
                 }
             }
             out.put(ex.imputers().get(m).name(), rows);
-        }
-        return out;
-    }
-
-    private static <T> List<T> invokeAll(ExecutorService pool, List<Callable<T>> tasks) {
-        List<Future<T>> futures = new ArrayList<>();
-        for (Callable<T> t : tasks) {
-            futures.add(pool.submit(t));
-        }
-        List<T> out = new ArrayList<>(tasks.size());
-        try {
-            for (Future<T> f : futures) {
-                out.add(f.get());
-            }
-        } catch (InterruptedException e) {
-            Thread.currentThread().interrupt();
-            throw new IllegalStateException("interrupted", e);
-        } catch (ExecutionException e) {
-            futures.forEach(f -> f.cancel(true));
-            Throwable c = e.getCause();
-            if (c instanceof RuntimeException re) {
-                throw re;
-            }
-            if (c instanceof Error err) {
-                throw err;
-            }
-            throw new IllegalStateException(c);
         }
         return out;
     }

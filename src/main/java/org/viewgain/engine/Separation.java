@@ -2,6 +2,7 @@ package org.viewgain.engine;
 
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Map;
 import org.viewgain.cohort.Rows;
 import org.viewgain.folds.FitContext;
 import org.viewgain.folds.Seeds;
@@ -31,24 +32,37 @@ public final class Separation {
     }
 
     /**
-     * The rows, one per feature set and imputer, in pipeline order; computed two or more at a time (the common pool
-     * and the calling thread: each row seeds its own permutations, so the rows do not depend on which thread ran
-     * them). On 1,000 x 268 regions the five rows took 15 s on the calling thread alone at the end of the run.
+     * The rows, one per feature set and imputer, in pipeline order: those the run computed alongside its last units
+     * ({@link RunResults#separation}), or computed here two or more at a time (the common pool and the calling thread:
+     * each row seeds its own permutations, so the rows do not depend on which thread ran them). On 1,000 x 268
+     * regions the five rows took 15 s on the calling thread alone at the end of the run.
      */
     public static List<Row> of(RunResults res) {
+        if (res.separation() != null) {
+            return res.separation(); // computed by the run while its threads had room
+        }
         Experiment ex = res.experiment();
+        List<Pipeline> rows = pipelines(ex);
+        return java.util.stream.IntStream.range(0, rows.size()).parallel()
+                .mapToObj(k -> row(ex, res.firstRepeatImputed(), rows.get(k))).toList();
+    }
+
+    /** The pipelines that name the rows: one per feature set and imputer (the first classifier's), in order. */
+    static List<Pipeline> pipelines(Experiment ex) {
         List<Pipeline> rows = new ArrayList<>();
         for (Pipeline p : ex.pipelines()) {
             if (p.classifier().equals(ex.classifiers().get(0).name())) {
                 rows.add(p); // one row per feature set and imputer, not per classifier
             }
         }
-        return java.util.stream.IntStream.range(0, rows.size()).parallel().mapToObj(k -> row(res, rows.get(k)))
-                .toList();
+        return rows;
     }
 
-    private static Row row(RunResults res, Pipeline p) {
-        Experiment ex = res.experiment();
+    /**
+     * One row; {@code firstRepeat} holds the run's out-of-fold imputations of the first repeat per imputer (those
+     * missing are recomputed).
+     */
+    static Row row(Experiment ex, Map<String, float[][]> firstRepeat, Pipeline p) {
         List<Integer> members = new ArrayList<>();
         for (int i = 0; i < ex.data().n(); i++) {
             if (ex.inPopulation(p.featureSet(), i)) {
@@ -61,7 +75,7 @@ public final class Separation {
         }
         ImputedFold imputed = null;
         if (p.featureSet().needsImputer()) {
-            float[][] kept = res.firstRepeatImputed().get(p.imputer());
+            float[][] kept = firstRepeat.get(p.imputer());
             imputed = kept != null ? new ImputedFold(kept, Params.NONE, Double.NaN, List.of(), null)
                     : firstRepeatImputations(ex, p.imputer());
         }

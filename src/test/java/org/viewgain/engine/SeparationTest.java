@@ -32,8 +32,13 @@ class SeparationTest {
                 validation: { outer: { folds: 3 }, inner: { folds: 2 } }
                 significance: { bootstrap: 0 }
                 """)));
-        List<Separation.Row> rows = Separation.of(new Runner(ex, 2, Progress.NONE).run());
+        RunResults res = new Runner(ex, 2, Progress.NONE).run();
+        List<Separation.Row> rows = Separation.of(res);
         assertEquals(3, rows.size(), "one row per feature set and imputer, not per classifier");
+        // the run computed the rows alongside its last units; computed afterwards (as a merge of shards does) they
+        // are the same, whichever threads ran them
+        assertTrue(res.separation() != null, "computed by the run");
+        assertEquals(rows, Separation.of(res.withSeparation(null)));
         Map<String, Separation.Row> by = rows.stream().collect(Collectors.toMap(Separation.Row::featureSet, r -> r));
         long withTarget = java.util.stream.IntStream.range(0, ex.data().n()).filter(ex.data()::hasTarget).count();
         assertEquals(60, by.get("source").n());
