@@ -80,32 +80,15 @@ public final class SmileMatrices {
     private static final int GRAM_BLOCK = 2048;
 
     /**
-     * The Gram matrix {@code x x'} (every pair of rows' inner product) by native BLAS, a block of columns at a time
-     * so that no copy of all the rows is made (wide views hold hundreds of megabytes); the lower triangle is mirrored,
-     * so the result is exactly symmetric. Sums in BLAS's order, not a scalar loop's: the last digits differ from a
+     * The Gram matrix {@code x x'} (every pair of rows' inner product) by native BLAS's symmetric rank-k update, a
+     * block of columns at a time so that no copy of all the rows is made (wide views hold hundreds of megabytes; see
+     * {@link #lowerGram}); exactly symmetric. Sums in BLAS's order, not a scalar loop's: the last digits differ from a
      * plain dot product, and are the same on every run on one machine (BLAS on one thread).
      */
     public static double[][] rowGram(double[][] x) {
         int n = x.length;
         int p = n == 0 ? 0 : x[0].length;
-        double[] g = new double[n * n];
-        double[] block = new double[n * Math.min(p, GRAM_BLOCK)];
-        for (int c0 = 0; c0 < p; c0 += GRAM_BLOCK) {
-            int w = Math.min(GRAM_BLOCK, p - c0);
-            for (int i = 0; i < n; i++) {
-                System.arraycopy(x[i], c0, block, i * w, w);
-            }
-            BLAS.engine.gemm(Layout.ROW_MAJOR, Transpose.NO_TRANSPOSE, Transpose.TRANSPOSE, n, n, w, 1.0, block, w,
-                    block, w, 1.0, g, n);
-        }
-        double[][] out = new double[n][n];
-        for (int i = 0; i < n; i++) {
-            for (int j = 0; j <= i; j++) {
-                out[i][j] = g[i * n + j];
-                out[j][i] = g[i * n + j];
-            }
-        }
-        return out;
+        return lowerGram(n, p, GRAM_BLOCK, (i, from, width, dest, at) -> System.arraycopy(x[i], from, dest, at, width));
     }
 
     /** Writes {@code width} values of row {@code row}, from column {@code from}, into {@code dest} at {@code at}. */
@@ -117,7 +100,7 @@ public final class SmileMatrices {
     /**
      * The Gram matrix of n rows of width p that {@code rows} supplies a block of columns at a time (so that no copy of
      * all the rows is made, and rows stored in another form can be widened or shifted as they are copied), by native
-     * BLAS's symmetric rank-k update ({@code dsyrk}, half the multiply-adds of {@link #rowGram}); the lower triangle
+     * BLAS's symmetric rank-k update ({@code dsyrk}, half the multiply-adds of a general product); the lower triangle
      * is mirrored, so the result is exactly symmetric. Sums in BLAS's order; the same on every run on one machine.
      */
     public static double[][] lowerGram(int n, int p, int block, RowBlock rows) {

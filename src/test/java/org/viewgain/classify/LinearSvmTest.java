@@ -200,6 +200,43 @@ class LinearSvmTest {
     }
 
     /**
+     * From {@link LinearSvm#BLAS_FROM} features the Gram matrix comes from native BLAS: each entry is the rows' dot
+     * product plus one (the constant input) to 1e-12 of the largest entry, the matrix exactly symmetric, and the same
+     * on a second call. Invented rows (the definition is the reference); 60 rows cover one block edge of 2,048.
+     */
+    @Test
+    void givenRowsWiderThanTheBlasThreshold_whenTheGramMatrixIsComputed_thenItIsTheRowsDotProductsPlusOne() {
+        java.util.SplittableRandom rnd = new java.util.SplittableRandom(12);
+        int n = 60;
+        int p = LinearSvm.BLAS_FROM + 2048 + 7;
+        double[][] x = new double[n][p];
+        for (double[] row : x) {
+            for (int j = 0; j < p; j++) {
+                row[j] = rnd.nextGaussian();
+            }
+        }
+        double[][] k = LinearSvm.gram(x);
+        double largest = 0;
+        double worst = 0;
+        for (int a = 0; a < n; a++) {
+            for (int b = 0; b < n; b++) {
+                double dot = 1;
+                for (int j = 0; j < p; j++) {
+                    dot += x[a][j] * x[b][j];
+                }
+                largest = Math.max(largest, Math.abs(dot));
+                worst = Math.max(worst, Math.abs(dot - k[a][b]));
+                assertEquals(k[a][b], k[b][a], 0.0, "symmetric");
+            }
+        }
+        assertTrue(worst <= 1e-12 * largest, "largest difference " + worst + " of " + largest);
+        double[][] again = LinearSvm.gram(x);
+        for (int a = 0; a < n; a++) {
+            assertArrayEquals(k[a], again[a], 0.0);
+        }
+    }
+
+    /**
      * The Gram-matrix solver takes the same steps as the primal one (same seeded order, same updates), so both end
      * with the same passes and the same weights up to rounding (1e-9 of the largest weight), on breast-cancer-wisconsin
      * (Wolberg et al. 1995) and on wide invented data at the C values of the demo's grid; at tolerance 1e-6 it also
