@@ -113,7 +113,8 @@ public final class RidgeImputer implements ViewImputer {
     /**
      * A dual-form model fitted through the run's table: {@code ((x - mx) Xc') Z Yc + my}, the rows' products with the
      * training rows read from the table when the rows are the cohort's own source views, computed from the kept
-     * training rows otherwise. It freezes as the {@link FrozenImputers.RidgeDualInverse} it equals.
+     * training rows otherwise (the rows it was given, not copied: callers hand it rows of their own). It freezes as
+     * the {@link FrozenImputers.RidgeDualInverse} it equals.
      */
     static final class SharedDual implements Fitted, org.viewgain.frozen.Freezable {
         private final SourceGram products;

@@ -94,14 +94,12 @@ public final class SourceDistances {
      * The run's inner products between the same subjects' source views, for {@code ridge} ({@link SourceGram}; made
      * on first use, computed on a fit's first request), or null above its budget.
      */
-    public SourceGram products() {
-        synchronized (rows) {
-            if (!productsMade) {
-                productsMade = true;
-                products = SourceGram.of(rowIds, view);
-            }
-            return products;
+    public synchronized SourceGram products() {
+        if (!productsMade) {
+            productsMade = true;
+            products = SourceGram.of(rowIds, view);
         }
+        return products;
     }
 
     /**
