@@ -163,11 +163,10 @@ public final class LinearSvm implements ClassifierMethod {
      * columns at a time: the block is copied out column by column, and each row of the lower triangle adds
      * {@code x_i[j] * column j} for the block's columns (two at a time), a loop the just-in-time compiler turns into
      * vector instructions (a dot product per entry is not: its sum is one chain of dependent additions). Every entry
-     * is summed in the same order on every machine. Not {@code SmileMatrices.rowGram} (native BLAS, which the
-     * separation test uses on one large matrix per run): through Smile, BLAS computes the whole square and the JVM
-     * copies the rows to native memory on every call; measured 110-116 ms against 23 ms here at 213 x 9,900. From
-     * {@link #BLAS_FROM} features on, BLAS's symmetric update computes it ({@link SmileMatrices#lowerGram}: half the
-     * square, a block of columns at a time), in BLAS's order (the same on every run on one machine).
+     * is summed in the same order on every machine. From {@link #BLAS_FROM} features on, BLAS's symmetric update
+     * computes it instead ({@link SmileMatrices#lowerGram}, as the separation test's {@code rowGram}: half the
+     * square, a block of columns at a time), in BLAS's order (the same on every run on one machine); below that this
+     * loop is as fast or faster (measurements at {@link #BLAS_FROM}).
      */
     static double[][] gram(double[][] x) {
         int n = x.length;

@@ -132,8 +132,7 @@ final class Section {
         if (n.isIntegralNumber() && n.asLong() >= min && n.asLong() <= max) {
             return n.asInt();
         }
-        problems.add(key(name), "expected a whole number " + (max == Integer.MAX_VALUE ? "of at least " + min : "from " + min + " to " + max)
-                + ", found " + describe(n));
+        problems.add(key(name), "expected a whole number " + ParamDef.range(min, max) + ", found " + describe(n));
         return def;
     }
 

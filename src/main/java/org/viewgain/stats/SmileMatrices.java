@@ -1,11 +1,9 @@
 package org.viewgain.stats;
 
-import smile.math.blas.BLAS;
 import smile.math.blas.EVDJob;
 import smile.math.blas.EigenRange;
 import smile.math.blas.LAPACK;
 import smile.math.blas.Layout;
-import smile.math.blas.Transpose;
 import smile.math.blas.UPLO;
 import smile.math.matrix.Matrix;
 
