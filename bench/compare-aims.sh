@@ -45,9 +45,9 @@ for c in $cases; do
     "${environment[@]}" /usr/bin/time -f "%e %U %S %M" -o "$tmp/time" java $opts ${HEAP_OPTS:-} -Xlog:gc:file="$tmp/gc.log" -cp "$cp" \
       org.viewgain.cli.Main "${args[@]}" \
       > "$tmp/log" 2>&1 || { cat "$tmp/log" >&2; exit 1; }
-    heap="$(grep -o '[0-9]*M->[0-9]*M' "$tmp/gc.log" | sed 's/.*->//; s/M//' | sort -n | tail -1)"
+    heap="$(grep -o '[0-9]*M->[0-9]*M' "$tmp/gc.log" | sed 's/.*->//; s/M//' | sort -n | tail -1 || true)"
     # after a full collection the heap holds live data only (a young collection's figure includes old garbage)
-    live="$(grep 'Pause Full' "$tmp/gc.log" | grep -o '[0-9]*M->[0-9]*M' | sed 's/.*->//; s/M//' | sort -n | tail -1)"
+    live="$(grep 'Pause Full' "$tmp/gc.log" | grep -o '[0-9]*M->[0-9]*M' | sed 's/.*->//; s/M//' | sort -n | tail -1 || true)"
     echo "| $c | $which | $(awk '{printf "%s | %s | %s | %d", $1, $2, $3, $4 / 1024}' "$tmp/time") | ${heap:-none} | ${live:-no full GC} | $load |"
   done
 done
