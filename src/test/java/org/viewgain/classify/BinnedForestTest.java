@@ -319,4 +319,20 @@ class BinnedForestTest {
             }
         }
     }
+
+    /**
+     * A training block whose bin codes would not fit in one Java array (rows x features above 2^31 - 16) is refused
+     * with a message that names the sizes and the ways out, before anything of that size is allocated: 65,536 rows
+     * sharing one row of 32,769 features (2^31 + 65,536 codes) take 0.8 MB here.
+     */
+    @Test
+    void refusesABlockWhoseCodesExceedOneArray() {
+        double[] row = new double[32_769];
+        double[][] x = new double[65_536][];
+        Arrays.fill(x, row);
+        IllegalArgumentException e = org.junit.jupiter.api.Assertions.assertThrows(IllegalArgumentException.class,
+                () -> BinnedForest.Bins.of(x));
+        assertTrue(e.getMessage().contains("65536 training rows x 32769 features"), e.getMessage());
+        assertTrue(e.getMessage().contains("weka.classifiers.trees.RandomForest"), e.getMessage());
+    }
 }
