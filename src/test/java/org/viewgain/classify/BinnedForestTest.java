@@ -2,6 +2,7 @@ package org.viewgain.classify;
 
 import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.Arrays;
@@ -330,8 +331,7 @@ class BinnedForestTest {
         double[] row = new double[32_769];
         double[][] x = new double[65_536][];
         Arrays.fill(x, row);
-        IllegalArgumentException e = org.junit.jupiter.api.Assertions.assertThrows(IllegalArgumentException.class,
-                () -> BinnedForest.Bins.of(x));
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class, () -> BinnedForest.Bins.of(x));
         assertTrue(e.getMessage().contains("65536 training rows x 32769 features"), e.getMessage());
         assertTrue(e.getMessage().contains("weka.classifiers.trees.RandomForest"), e.getMessage());
     }
