@@ -327,7 +327,7 @@ class BinnedForestTest {
      * sharing one row of 32,769 features (2^31 + 65,536 codes) take 0.8 MB here.
      */
     @Test
-    void refusesABlockWhoseCodesExceedOneArray() {
+    void givenABlockWhoseCodesExceedOneArray_whenBinned_thenRefusedWithTheSizesAndTheWaysOut() {
         double[] row = new double[32_769];
         double[][] x = new double[65_536][];
         Arrays.fill(x, row);
