@@ -4,7 +4,6 @@ import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.dataformat.yaml.YAMLFactory;
 import java.io.IOException;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.LinkedHashSet;
@@ -40,10 +39,8 @@ final class ReportData {
 
     private ReportData(Path dir, boolean redactIds) throws IOException {
         this.dir = dir;
+        RunFolder.existing(dir); // refuses a folder without run.json
         Path runJson = dir.resolve("run.json");
-        if (!Files.isRegularFile(runJson)) {
-            throw new BadInputException(dir + ": not a run folder (no run.json)");
-        }
         ObjectMapper json = new ObjectMapper();
         run = json.readTree(runJson.toFile());
         int schema = run.path("schema_version").asInt(0);

@@ -62,7 +62,7 @@ public final class RunFolder {
     /** An existing run folder, to resume; it must hold run.json. */
     public static RunFolder existing(Path dir) {
         if (!Files.isRegularFile(dir.resolve("run.json"))) {
-            throw new org.viewgain.spec.BadInputException(dir + " is not a run folder (no run.json)");
+            throw new org.viewgain.spec.BadInputException(dir + ": not a run folder (no run.json)");
         }
         return new RunFolder(dir);
     }
