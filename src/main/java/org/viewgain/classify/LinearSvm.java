@@ -156,7 +156,6 @@ public final class LinearSvm implements ClassifierMethod {
      * and slower below (46 against 41 ms at 400 x 4,950, 5 against 2 ms at 128 x 1,190).
      */
     static final int BLAS_FROM = 16_384;
-    private static final int BLAS_BLOCK = 2048;
 
     /**
      * The rows' Gram matrix with the constant input: {@code K[i][j] = x_i . x_j + 1} (symmetric). Computed a block of
@@ -164,16 +163,15 @@ public final class LinearSvm implements ClassifierMethod {
      * {@code x_i[j] * column j} for the block's columns (two at a time), a loop the just-in-time compiler turns into
      * vector instructions (a dot product per entry is not: its sum is one chain of dependent additions). Every entry
      * is summed in the same order on every machine. From {@link #BLAS_FROM} features on, BLAS's symmetric update
-     * computes it instead ({@link SmileMatrices#lowerGram}, as the separation test's {@code rowGram}: half the
-     * square, a block of columns at a time), in BLAS's order (the same on every run on one machine); below that this
-     * loop is as fast or faster (measurements at {@link #BLAS_FROM}).
+     * computes it instead ({@link SmileMatrices#rowGram}, as the separation test does: half the square, a block of
+     * columns at a time), in BLAS's order (the same on every run on one machine); below that this loop is as fast or
+     * faster (measurements at {@link #BLAS_FROM}).
      */
     static double[][] gram(double[][] x) {
         int n = x.length;
         int p = n == 0 ? 0 : x[0].length;
         if (p >= BLAS_FROM) {
-            double[][] k = SmileMatrices.lowerGram(n, p, BLAS_BLOCK,
-                    (i, from, width, dest, at) -> System.arraycopy(x[i], from, dest, at, width));
+            double[][] k = SmileMatrices.rowGram(x);
             for (double[] row : k) {
                 for (int j = 0; j < n; j++) {
                     row[j] += 1;

@@ -29,8 +29,6 @@ import org.viewgain.stats.SmileMatrices;
 public final class SourceGram {
     /** The largest table kept: 256 MiB, about 5,790 subjects. */
     public static final long BUDGET_BYTES = 256L << 20;
-    /** Columns of the shifted views copied out together for one BLAS call. */
-    private static final int BLOCK = 2048;
 
     private final Map<String, Integer> index = new HashMap<>();
     private final List<String> ids;
@@ -187,7 +185,7 @@ public final class SourceGram {
         for (int j = 0; j < p; j++) {
             mu[j] /= n;
         }
-        double[][] g = SmileMatrices.lowerGram(n, p, BLOCK, (i, from, width, dest, at) -> {
+        double[][] g = SmileMatrices.lowerGram(n, p, (i, from, width, dest, at) -> {
             float[] row = rows[i];
             for (int j = 0; j < width; j++) {
                 dest[at + j] = row[from + j] - mu[from + j];

@@ -74,7 +74,7 @@ public final class SmileMatrices {
         return out;
     }
 
-    /** Columns of the rows copied together into one block for {@link #rowGram}. */
+    /** Columns of the rows copied together into one block for each BLAS call of {@link #lowerGram}. */
     private static final int GRAM_BLOCK = 2048;
 
     /**
@@ -86,7 +86,7 @@ public final class SmileMatrices {
     public static double[][] rowGram(double[][] x) {
         int n = x.length;
         int p = n == 0 ? 0 : x[0].length;
-        return lowerGram(n, p, GRAM_BLOCK, (i, from, width, dest, at) -> System.arraycopy(x[i], from, dest, at, width));
+        return lowerGram(n, p, (i, from, width, dest, at) -> System.arraycopy(x[i], from, dest, at, width));
     }
 
     /** Writes {@code width} values of row {@code row}, from column {@code from}, into {@code dest} at {@code at}. */
@@ -101,11 +101,11 @@ public final class SmileMatrices {
      * BLAS's symmetric rank-k update ({@code dsyrk}, half the multiply-adds of a general product); the lower triangle
      * is mirrored, so the result is exactly symmetric. Sums in BLAS's order; the same on every run on one machine.
      */
-    public static double[][] lowerGram(int n, int p, int block, RowBlock rows) {
+    public static double[][] lowerGram(int n, int p, RowBlock rows) {
         double[] g = new double[n * n];
-        double[] buf = new double[n * Math.min(p, block)];
-        for (int c0 = 0; c0 < p; c0 += block) {
-            int w = Math.min(block, p - c0);
+        double[] buf = new double[n * Math.min(p, GRAM_BLOCK)];
+        for (int c0 = 0; c0 < p; c0 += GRAM_BLOCK) {
+            int w = Math.min(GRAM_BLOCK, p - c0);
             for (int i = 0; i < n; i++) {
                 rows.copy(i, c0, w, buf, i * w);
             }
